@@ -1,0 +1,44 @@
+/**
+ * Reading a Touchstone file from disk: streamed through the parser in fixed
+ * chunks, so memory holds the numbers and one chunk, not the whole text.
+ */
+import { closeSync, fstatSync, openSync, readSync } from 'node:fs';
+import { basename } from 'node:path';
+import { TouchstoneParser } from '../touchstone/parse.js';
+import { fromParsed, type ReadResult } from '../touchstone/read.js';
+
+const CHUNK = 1 << 20;
+
+export interface FileReadResult extends ReadResult {
+  readonly bytes: number;
+}
+
+/** Reads and parses; a file that cannot be opened comes back as an error, like bad content. */
+export function readTouchstoneFile(path: string, ports?: number): FileReadResult {
+  let fd: number;
+  try {
+    fd = openSync(path, 'r');
+  } catch (e) {
+    const err = e as NodeJS.ErrnoException;
+    const what = err.code === 'ENOENT' ? 'no such file' : err.code === 'EISDIR' ? 'is a folder, not a file' : err.code === 'EACCES' ? 'permission denied' : err.message;
+    return { value: null, errors: [{ code: 'not-text', line: 0, message: `cannot read the file: ${what}` }], warnings: [], bytes: 0 };
+  }
+  try {
+    const size = fstatSync(fd).size;
+    const parser = new TouchstoneParser({ fileName: basename(path), sizeHint: size, ports });
+    const chunk = new Uint8Array(Math.min(CHUNK, Math.max(size, 1)));
+    let total = 0;
+    for (;;) {
+      const got = readSync(fd, chunk, 0, chunk.length, null);
+      if (got === 0) break;
+      total += got;
+      parser.push(chunk.subarray(0, got));
+    }
+    return { ...fromParsed(parser.finish()), bytes: total };
+  } catch (e) {
+    const err = e as NodeJS.ErrnoException;
+    return { value: null, errors: [{ code: 'not-text', line: 0, message: `cannot read the file: ${err.code === 'EISDIR' ? 'is a folder, not a file' : err.message}` }], warnings: [], bytes: 0 };
+  } finally {
+    closeSync(fd);
+  }
+}

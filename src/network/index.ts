@@ -1,0 +1,10 @@
+export * from './network.js';
+export * from './traces.js';
+export * from './convert.js';
+export * from './twoport.js';
+export * from './mixedmode.js';
+export * from './interpolate.js';
+export * from './ports.js';
+export * from './quality.js';
+export * from './ieee370.js';
+export { singularValues, spectralNorm } from './linalg.js';

@@ -1,0 +1,214 @@
+/**
+ * Small dense complex linear algebra on interleaved Float64Array storage.
+ *
+ * A complex n×n matrix is stored row-major as re/im pairs: element (i, j)
+ * lives at `off + 2 * (i * n + j)` (re) and the next slot (im). Every routine
+ * takes an offset so that one frequency's matrix can be read straight out of a
+ * network's data array without copying.
+ */
+
+/** Allocates an n×n complex matrix (zeros). */
+export function cmat(n: number): Float64Array {
+  return new Float64Array(2 * n * n);
+}
+
+/** Copies an n×n matrix from `src[srcOff…]` into `dst[dstOff…]`. */
+export function cmatCopy(src: Float64Array, srcOff: number, n: number, dst: Float64Array, dstOff: number): void {
+  dst.set(src.subarray(srcOff, srcOff + 2 * n * n), dstOff);
+}
+
+/** dst = a · b (dst must not alias a or b). */
+export function cmatMul(
+  a: Float64Array, aOff: number,
+  b: Float64Array, bOff: number,
+  n: number,
+  dst: Float64Array, dstOff: number,
+): void {
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) {
+      let re = 0;
+      let im = 0;
+      for (let k = 0; k < n; k++) {
+        const ai = aOff + 2 * (i * n + k);
+        const bi = bOff + 2 * (k * n + j);
+        const ar = a[ai], aim = a[ai + 1], br = b[bi], bim = b[bi + 1];
+        re += ar * br - aim * bim;
+        im += ar * bim + aim * br;
+      }
+      const d = dstOff + 2 * (i * n + j);
+      dst[d] = re;
+      dst[d + 1] = im;
+    }
+  }
+}
+
+/**
+ * Inverts an n×n complex matrix by Gauss–Jordan elimination with partial
+ * pivoting. `work` must hold at least 2·n·n values; it is overwritten.
+ * Returns false (and leaves dst undefined) when the matrix is singular to
+ * working precision.
+ */
+export function cmatInv(
+  src: Float64Array, srcOff: number, n: number,
+  dst: Float64Array, dstOff: number,
+  work: Float64Array = new Float64Array(2 * n * n),
+): boolean {
+  const m = work;
+  m.set(src.subarray(srcOff, srcOff + 2 * n * n), 0);
+  // dst starts as the identity
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) {
+      const d = dstOff + 2 * (i * n + j);
+      dst[d] = i === j ? 1 : 0;
+      dst[d + 1] = 0;
+    }
+  }
+  let scale = 0;
+  for (let i = 0; i < 2 * n * n; i++) scale = Math.max(scale, Math.abs(m[i]));
+  const tiny = (scale || 1) * 1e-14;
+  for (let col = 0; col < n; col++) {
+    let piv = col;
+    let best = -1;
+    for (let r = col; r < n; r++) {
+      const p = 2 * (r * n + col);
+      const mag = Math.hypot(m[p], m[p + 1]);
+      if (mag > best) {
+        best = mag;
+        piv = r;
+      }
+    }
+    if (!(best > tiny)) return false;
+    if (piv !== col) {
+      for (let j = 0; j < n; j++) {
+        swap(m, 2 * (col * n + j), 2 * (piv * n + j));
+        swap(dst, dstOff + 2 * (col * n + j), dstOff + 2 * (piv * n + j));
+      }
+    }
+    const pp = 2 * (col * n + col);
+    const pr = m[pp], pi = m[pp + 1];
+    const den = pr * pr + pi * pi;
+    const ir = pr / den, ii = -pi / den;
+    for (let j = 0; j < n; j++) {
+      const a = 2 * (col * n + j);
+      mulInPlace(m, a, ir, ii);
+      mulInPlace(dst, dstOff + a, ir, ii);
+    }
+    for (let r = 0; r < n; r++) {
+      if (r === col) continue;
+      const f = 2 * (r * n + col);
+      const fr = m[f], fi = m[f + 1];
+      if (fr === 0 && fi === 0) continue;
+      for (let j = 0; j < n; j++) {
+        const t = 2 * (r * n + j);
+        const s = 2 * (col * n + j);
+        m[t] -= fr * m[s] - fi * m[s + 1];
+        m[t + 1] -= fr * m[s + 1] + fi * m[s];
+        const dt = dstOff + t, ds = dstOff + s;
+        const sr = dst[ds], si = dst[ds + 1];
+        dst[dt] -= fr * sr - fi * si;
+        dst[dt + 1] -= fr * si + fi * sr;
+      }
+    }
+  }
+  return true;
+}
+
+function swap(a: Float64Array, i: number, j: number): void {
+  const r = a[i], im = a[i + 1];
+  a[i] = a[j];
+  a[i + 1] = a[j + 1];
+  a[j] = r;
+  a[j + 1] = im;
+}
+
+function mulInPlace(a: Float64Array, i: number, br: number, bi: number): void {
+  const ar = a[i], ai = a[i + 1];
+  a[i] = ar * br - ai * bi;
+  a[i + 1] = ar * bi + ai * br;
+}
+
+/**
+ * Eigenvalues of a real symmetric n×n matrix (row-major, overwritten) by the
+ * cyclic Jacobi method. Returns them in descending order.
+ */
+export function symmetricEigenvalues(a: Float64Array, n: number): Float64Array {
+  for (let sweep = 0; sweep < 100; sweep++) {
+    let off = 0;
+    let diag = 0;
+    for (let i = 0; i < n; i++) {
+      diag += a[i * n + i] * a[i * n + i];
+      for (let j = i + 1; j < n; j++) off += a[i * n + j] * a[i * n + j];
+    }
+    if (off <= 1e-30 * (diag || 1)) break;
+    for (let p = 0; p < n; p++) {
+      for (let q = p + 1; q < n; q++) {
+        const apq = a[p * n + q];
+        if (apq === 0) continue;
+        const app = a[p * n + p], aqq = a[q * n + q];
+        const theta = (aqq - app) / (2 * apq);
+        const t = Math.sign(theta || 1) / (Math.abs(theta) + Math.sqrt(theta * theta + 1));
+        const c = 1 / Math.sqrt(t * t + 1);
+        const s = t * c;
+        for (let k = 0; k < n; k++) {
+          const akp = a[k * n + p], akq = a[k * n + q];
+          a[k * n + p] = c * akp - s * akq;
+          a[k * n + q] = s * akp + c * akq;
+        }
+        for (let k = 0; k < n; k++) {
+          const apk = a[p * n + k], aqk = a[q * n + k];
+          a[p * n + k] = c * apk - s * aqk;
+          a[q * n + k] = s * apk + c * aqk;
+        }
+      }
+    }
+  }
+  const out = new Float64Array(n);
+  for (let i = 0; i < n; i++) out[i] = a[i * n + i];
+  return out.sort().reverse();
+}
+
+/**
+ * Singular values of the complex n×n matrix at `src[off…]`, descending.
+ * They are the square roots of the eigenvalues of the Hermitian matrix SᴴS,
+ * found through its real symmetric 2n×2n embedding [[A, −B], [B, A]] (whose
+ * spectrum is that of SᴴS, each value twice).
+ */
+export function singularValues(src: Float64Array, off: number, n: number): Float64Array {
+  const h = new Float64Array(2 * n * n);
+  // h = Sᴴ S
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) {
+      let re = 0, im = 0;
+      for (let k = 0; k < n; k++) {
+        const a = off + 2 * (k * n + i); // conj(S[k][i])
+        const b = off + 2 * (k * n + j);
+        const ar = src[a], ai = -src[a + 1], br = src[b], bi = src[b + 1];
+        re += ar * br - ai * bi;
+        im += ar * bi + ai * br;
+      }
+      h[2 * (i * n + j)] = re;
+      h[2 * (i * n + j) + 1] = im;
+    }
+  }
+  const m = 2 * n;
+  const e = new Float64Array(m * m);
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) {
+      const re = h[2 * (i * n + j)], im = h[2 * (i * n + j) + 1];
+      e[i * m + j] = re;
+      e[(i + n) * m + (j + n)] = re;
+      e[i * m + (j + n)] = -im;
+      e[(i + n) * m + j] = im;
+    }
+  }
+  const ev = symmetricEigenvalues(e, m);
+  const out = new Float64Array(n);
+  for (let i = 0; i < n; i++) out[i] = Math.sqrt(Math.max(0, ev[2 * i]));
+  return out;
+}
+
+/** Largest singular value (the spectral norm) of the complex n×n matrix at `src[off…]`. */
+export function spectralNorm(src: Float64Array, off: number, n: number): number {
+  if (n === 1) return Math.hypot(src[off], src[off + 1]);
+  return singularValues(src, off, n)[0];
+}
