@@ -1,0 +1,37 @@
+/** Human formatting of frequencies and values, shared by the CLI and the pages. */
+
+const FREQ_UNITS = [
+  [1e9, 'GHz'],
+  [1e6, 'MHz'],
+  [1e3, 'kHz'],
+  [1, 'Hz'],
+] as const;
+
+/** The unit that suits a frequency (or the top of a range). */
+export function frequencyUnitFor(hz: number): { scale: number; unit: string } {
+  for (const [scale, unit] of FREQ_UNITS) if (Math.abs(hz) >= scale) return { scale, unit };
+  return { scale: 1, unit: 'Hz' };
+}
+
+/** "2.45 GHz": up to `digits` significant digits, trailing zeros dropped. */
+export function formatFrequency(hz: number, digits = 6): string {
+  if (!Number.isFinite(hz)) return String(hz);
+  const { scale, unit } = frequencyUnitFor(hz);
+  return `${trimNumber(hz / scale, digits)} ${unit}`;
+}
+
+/** A number to `digits` significant digits without trailing zeros or exponent for ordinary sizes. */
+export function trimNumber(v: number, digits = 6): string {
+  if (!Number.isFinite(v)) return v > 0 ? '∞' : v < 0 ? '−∞' : 'n/a';
+  if (v === 0) return '0';
+  const a = Math.abs(v);
+  if (a >= 1e-4 && a < 1e9) return String(Number(v.toPrecision(digits)));
+  return v.toExponential(digits - 1).replace(/\.?0+e/, 'e');
+}
+
+/** Fixed decimals, with a true minus sign for negative values. */
+export function fixed(v: number, decimals: number): string {
+  if (!Number.isFinite(v)) return trimNumber(v);
+  const s = v.toFixed(decimals);
+  return s.startsWith('-') ? (Number(s) === 0 ? s.slice(1) : `−${s.slice(1)}`) : s;
+}
