@@ -325,6 +325,9 @@ export class TouchstoneParser {
     if (opt.resistance.length > 1 && opt.resistance.length !== ports) {
       fail('option-value', opt.line, `the option line gives ${opt.resistance.length} R values for ${ports} ports; expected one, or one per port`);
     }
+    if ((opt.parameter === 'H' || opt.parameter === 'G') && this.header.matrixFormat && this.header.matrixFormat !== 'full') {
+      fail('keyword-value', this.line, `[Matrix Format] ${this.header.matrixFormat} cannot hold ${opt.parameter}-parameters: their off-diagonal entries differ in sign even for a reciprocal network; expected Full`);
+    }
     this.ports = ports;
     const twoPortOrder = this.version === '1.1' ? '21_12' : this.header.twoPortOrder;
     this.layout = layoutFor(ports, this.header.matrixFormat ?? 'full', twoPortOrder ?? '12_21');

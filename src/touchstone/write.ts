@@ -105,6 +105,9 @@ export function writeTouchstone(net: Network, options: WriteOptions = {}): strin
   const unit = options.frequencyUnit ?? 'GHz';
   const matrixFormat = v1 ? 'full' : (options.matrixFormat ?? 'full');
   const n = net.ports;
+  if (matrixFormat !== 'full' && (parameter === 'H' || parameter === 'G')) {
+    throw new TouchstoneWriteError(`${parameter}-parameters are written Full: even for a reciprocal network the off-diagonal entries differ in sign (${parameter.toLowerCase()}12 = −${parameter.toLowerCase()}21)`);
+  }
   const order2 = v1 ? '21_12' : (options.twoPortOrder ?? '12_21');
   const uniform = net.z0.every((r) => r === net.z0[0]);
   if (v1 && !uniform) throw new TouchstoneWriteError('version 1 holds one reference impedance for all ports; write version 2, or renormalize first');

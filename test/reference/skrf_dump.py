@@ -52,20 +52,33 @@ def dump(path):
     out["vswr"] = real(n.s_vswr)
     if len(n.f) > 1:
         out["group_delay"] = real(np.real(n.group_delay))
-    with np.errstate(all="ignore"):
-        out["z"] = cplx(n.z)
-        out["y"] = cplx(n.y)
+    def attempt(key, fn):
+        # scikit-rf raises where a matrix is singular (Z of a series element, say); the key is then left out
+        try:
+            with np.errstate(all="ignore"):
+                out[key] = fn()
+        except np.linalg.LinAlgError:
+            pass
+
+    attempt("z", lambda: cplx(n.z))
+    attempt("y", lambda: cplx(n.y))
+
+    def renormalized():
         r = n.copy()
         r.renormalize(75)
-        out["s75"] = cplx(r.s)
-        if n.nports == 4:
+        return cplx(r.s)
+
+    attempt("s75", renormalized)
+    if n.nports == 4:
+        def mixed():
             m = n.copy()
             m.se2gmm(p=2)
-            out["mixed"] = cplx(m.s)
             out["mixed_z0"] = cplx(m.z0)
-        if n.nports == 2:
-            out["abcd"] = cplx(n.a)
-            out["t"] = cplx(n.t)
+            return cplx(m.s)
+
+        attempt("mixed", mixed)
+    if n.nports == 2:
+        attempt("abcd", lambda: cplx(n.a))
     # Noise as read (skrf's Network interpolates it onto the network grid).
     t = skrf.io.touchstone.Touchstone(path)
     if t.noise is not None:
