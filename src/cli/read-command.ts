@@ -78,12 +78,12 @@ export function readSummary(name: string, data: TouchstoneData, t: Terminal): st
   row(
     'passivity',
     `largest singular value ${trimNumber(pas.max, 5)} at ${formatFrequency(pas.atHz)}: ` +
-      (pas.passive ? p.green('passive') : p.yellow('not passive') + ' (expected of an active part such as an amplifier; a fault in the data of a passive one)'),
+      (pas.passive ? p.green('passive') + ' (≤ 1 + 1e-3)' : p.yellow('not passive') + ' (expected of an active part such as an amplifier; a fault in the data of a passive one)'),
   );
   if (net.ports > 1) {
     const rec = reciprocity(net);
     const where = rec.pair ? ` (S${rec.pair[0]}${rec.pair[1]} vs S${rec.pair[1]}${rec.pair[0]} at ${formatFrequency(rec.atHz)})` : '';
-    row('reciprocity', `largest |Sij − Sji| ${trimNumber(rec.maxDeviation, 3)}${where}: ${rec.reciprocal ? p.green('reciprocal') : p.yellow('not reciprocal')}`);
+    row('reciprocity', `largest |Sij − Sji| ${trimNumber(rec.maxDeviation, 3)}${where}: ${rec.reciprocal ? p.green('reciprocal') + ' (≤ 1e-3)' : p.yellow('not reciprocal') + ' (> 1e-3)'}`);
   } else {
     row('reciprocity', 'does not apply to a 1-port');
   }
@@ -108,7 +108,7 @@ export const readCommand: Command = {
       if (!Number.isInteger(ports) || ports < 1) throw new UsageError(`--ports needs a whole number ≥ 1, got "${portsFlag}"`);
     }
     const file = args.positionals[0];
-    const result = readTouchstoneFile(resolve(t.cwd, file), ports);
+    const result = readTouchstoneFile(resolve(t.cwd, file), { ports });
     for (const w of result.warnings) t.stderr.write(`${formatDiagnostic(file, w).replace(/^([^ ]*:) /, '$1 warning: ')}\n`);
     if (!result.value) {
       for (const e of result.errors) t.stderr.write(`${formatDiagnostic(file, e).replace(/^([^ ]*:) /, '$1 error: ')}\n`);

@@ -13,8 +13,16 @@ export interface FileReadResult extends ReadResult {
   readonly bytes: number;
 }
 
+export interface FileReadOptions {
+  /** Port count for a version 1 file whose name has no .sNp extension. */
+  readonly ports?: number;
+  /** Called after each chunk with the bytes read so far and the file size (for progress displays). */
+  readonly onProgress?: (bytesRead: number, size: number) => void;
+}
+
 /** Reads and parses; a file that cannot be opened comes back as an error, like bad content. */
-export function readTouchstoneFile(path: string, ports?: number): FileReadResult {
+export function readTouchstoneFile(path: string, options: FileReadOptions = {}): FileReadResult {
+  const { ports, onProgress } = options;
   let fd: number;
   try {
     fd = openSync(path, 'r');
@@ -33,6 +41,7 @@ export function readTouchstoneFile(path: string, ports?: number): FileReadResult
       if (got === 0) break;
       total += got;
       parser.push(chunk.subarray(0, got));
+      onProgress?.(total, size);
     }
     return { ...fromParsed(parser.finish()), bytes: total };
   } catch (e) {

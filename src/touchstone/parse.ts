@@ -53,13 +53,18 @@ class Column {
     this.data = new Float64Array(Math.max(capacity, 1));
   }
   grow(needed: number): void {
-    const next = new Float64Array(Math.max(needed, Math.ceil(this.data.length * 1.5)));
+    const next = new Float64Array(Math.max(needed, this.data.length + 1));
     next.set(this.data);
     this.data = next;
   }
-  /** The first `used` values, copied only when storage is larger. */
+  /**
+   * The first `used` values. Storage that is at most a quarter too large is
+   * handed over as a view (no copy, so no second array at the peak); more
+   * slack is trimmed by a copy.
+   */
   take(used: number): Float64Array {
-    return used === this.data.length ? this.data : this.data.slice(0, used);
+    if (used === this.data.length) return this.data;
+    return this.data.length - used <= this.data.length / 4 ? this.data.subarray(0, used) : this.data.slice(0, used);
   }
 }
 
@@ -96,6 +101,8 @@ export class TouchstoneParser {
   private firstPointBytes = 0;
   private firstPointStart = 0;
   private magnitudeCheck = false;
+  /** Storage has been sized from the file size once. */
+  private sized = false;
 
   // noise data
   private noise: Column[] | null = null;
@@ -109,28 +116,32 @@ export class TouchstoneParser {
     this.header = { version: null, ports: null, twoPortOrder: null, frequencies: null, noiseFrequencies: null, reference: null, referenceLine: 0, matrixFormat: null, mixedModeOrder: null, pendingReference: false };
   }
 
-  /** Feeds the next chunk of bytes. */
+  /** Feeds the next chunk of bytes. The chunk is not kept: the caller may reuse it. */
   push(chunk: Uint8Array): void {
-    if (this.error || this.phase === 'end') {
-      this.bytesSeen += chunk.length;
-      return;
-    }
-    let buf = chunk;
-    if (this.carry) {
-      buf = new Uint8Array(this.carry.length + chunk.length);
-      buf.set(this.carry);
-      buf.set(chunk, this.carry.length);
-      this.carry = null;
-    }
-    const base = this.bytesSeen - (buf.length - chunk.length);
+    const start = this.bytesSeen;
     this.bytesSeen += chunk.length;
-    const lastNl = buf.lastIndexOf(10);
-    if (lastNl < 0) {
-      this.carry = buf.slice();
-      return;
+    if (this.error || this.phase === 'end') return;
+    let from = 0;
+    if (this.carry) {
+      // finish the line that the previous chunk cut, in a small buffer of its own
+      const nl = chunk.indexOf(10);
+      const upto = nl < 0 ? chunk.length : nl + 1;
+      const joined = new Uint8Array(this.carry.length + upto);
+      joined.set(this.carry);
+      joined.set(chunk.subarray(0, upto), this.carry.length);
+      const joinedBase = start - this.carry.length;
+      this.carry = null;
+      if (nl < 0) {
+        this.carry = joined;
+        return;
+      }
+      this.run(joined, 0, joined.length, joinedBase);
+      from = upto;
     }
-    this.run(buf, 0, lastNl + 1, base);
-    if (lastNl + 1 < buf.length) this.carry = buf.slice(lastNl + 1);
+    const lastNl = chunk.lastIndexOf(10);
+    if (lastNl >= from) this.run(chunk, from, lastNl + 1, start);
+    const tail = Math.max(from, lastNl + 1);
+    if (tail < chunk.length && !this.error) this.carry = chunk.slice(tail);
   }
 
   /** Ends the input and returns the record or the first error. */
@@ -481,15 +492,19 @@ export class TouchstoneParser {
     this.pos = pos;
   }
 
-  /** Storage is full: size it from the bytes left (v1) or grow by half. */
+  /**
+   * Storage is full. Once the first point's size in bytes is known and the
+   * file size is, storage is sized for the whole file with 5 % to spare;
+   * otherwise (or if that was short) it grows by a quarter.
+   */
   private growStorage(offset: number): void {
     const freq = this.freq as Column;
     const vals = this.vals as Column;
-    let want = Math.ceil(freq.data.length * 1.5);
+    let want = Math.ceil(freq.data.length * 1.25) + 1;
     const total = this.opts.sizeHint;
-    if (total && this.firstPointBytes > 0) {
-      const estimate = this.count + Math.ceil(((total - offset) / this.firstPointBytes) * 1.05) + 2;
-      if (estimate > this.count) want = Math.max(this.count + 1, Math.min(want * 4, estimate));
+    if (total && this.firstPointBytes > 0 && !this.sized) {
+      this.sized = true;
+      want = Math.max(want, this.count + Math.ceil(((total - offset) / this.firstPointBytes) * 1.05) + 2);
     }
     freq.grow(want);
     vals.grow(want * this.stride);

@@ -24,6 +24,11 @@ export interface WriteOptions {
   /** Comment lines written at the top (without "!"). */
   readonly comments?: readonly string[];
   readonly noise?: NoiseParameters | null;
+  /**
+   * Significant digits of the data values (frequencies are always exact).
+   * Default: as many as a double needs to read back unchanged.
+   */
+  readonly significantDigits?: number;
 }
 
 export class TouchstoneWriteError extends Error {}
@@ -35,8 +40,9 @@ export function shiftDecimal(x: number, pow: number): string {
   const sign = text.startsWith('-') ? '-' : '';
   const [mant, expText] = text.replace('-', '').split('e');
   const [intPart, fracPart = ''] = mant.split('.');
-  const digits = (intPart + fracPart).replace(/^0+/, '');
-  const lead = (intPart + fracPart).length - digits.length;
+  const all = intPart + fracPart;
+  const lead = all.length - all.replace(/^0+/, '').length;
+  const digits = all.slice(lead).replace(/0+$/, '');
   // value = 0.digits × 10^point
   const point = intPart.length - lead + Number(expText ?? 0) - pow;
   let out: string;
@@ -47,15 +53,23 @@ export function shiftDecimal(x: number, pow: number): string {
   return sign + out;
 }
 
-function num(v: number): string {
-  if (!Number.isFinite(v)) throw new TouchstoneWriteError(`cannot write ${v}: Touchstone holds finite numbers only`);
-  return Object.is(v, -0) ? '0' : String(v);
+type NumberText = (v: number) => string;
+
+/** Shortest round-trip text, or `digits` significant digits; never NaN or ∞. */
+function numberText(digits?: number): NumberText {
+  return (v) => {
+    if (!Number.isFinite(v)) throw new TouchstoneWriteError(`cannot write ${v}: Touchstone holds finite numbers only`);
+    if (v === 0) return '0';
+    return digits === undefined ? String(v) : String(Number(v.toPrecision(digits)));
+  };
 }
+
+const exact = numberText();
 
 /** Smallest dB value written for an exact zero (|S| = 1e−50). */
 const ZERO_DB = -1000;
 
-function pairText(re: number, im: number, format: DataFormat): string {
+function pairText(re: number, im: number, format: DataFormat, num: NumberText): string {
   if (format === 'RI') return `${num(re)} ${num(im)}`;
   const mag = Math.hypot(re, im);
   const ang = mag === 0 ? 0 : (Math.atan2(im, re) * 180) / Math.PI;
@@ -119,18 +133,19 @@ export function writeTouchstone(net: Network, options: WriteOptions = {}): strin
     throw new TouchstoneWriteError('in version 1 the noise block must start at a frequency not above the last network frequency, or it would read as network data');
   }
   const data = parameterData(net, parameter, v1);
+  const num = numberText(options.significantDigits);
   const exp = FREQUENCY_EXPONENT[unit];
   const lines: string[] = [];
   for (const c of options.comments ?? []) lines.push(`! ${c}`.trimEnd());
   if (!v1) lines.push(`[Version] ${version}`);
-  const rText = perPortR ? Array.from(net.z0, num).join(' ') : num(net.z0[0]);
+  const rText = perPortR ? Array.from(net.z0, exact).join(' ') : exact(net.z0[0]);
   lines.push(`# ${unit.toUpperCase()} ${parameter} ${format} R ${rText}`);
   if (!v1) {
     lines.push(`[Number of Ports] ${n}`);
     if (n === 2) lines.push(`[Two-Port Data Order] ${order2}`);
     lines.push(`[Number of Frequencies] ${k}`);
     if (noise) lines.push(`[Number of Noise Frequencies] ${noise.freqHz.length}`);
-    if (!uniform && !perPortR) lines.push(`[Reference] ${Array.from(net.z0, num).join(' ')}`);
+    if (!uniform && !perPortR) lines.push(`[Reference] ${Array.from(net.z0, exact).join(' ')}`);
     if (matrixFormat !== 'full') lines.push(`[Matrix Format] ${matrixFormat === 'lower' ? 'Lower' : 'Upper'}`);
     lines.push('[Network Data]');
   }
@@ -142,7 +157,7 @@ export function writeTouchstone(net: Network, options: WriteOptions = {}): strin
     const off = q * stride;
     const f = shiftDecimal(net.freqHz[q], exp);
     if (n <= 2) {
-      lines.push(`${f} ${order.map(([i, j]) => pairText(data[off + 2 * (i * n + j)], data[off + 2 * (i * n + j) + 1], format)).join(' ')}`);
+      lines.push(`${f} ${order.map(([i, j]) => pairText(data[off + 2 * (i * n + j)], data[off + 2 * (i * n + j) + 1], format, num)).join(' ')}`);
       continue;
     }
     let row = -1;
@@ -161,7 +176,7 @@ export function writeTouchstone(net: Network, options: WriteOptions = {}): strin
         current = '';
         inRow = 0;
       }
-      const p = pairText(data[off + 2 * (i * n + j)], data[off + 2 * (i * n + j) + 1], format);
+      const p = pairText(data[off + 2 * (i * n + j)], data[off + 2 * (i * n + j) + 1], format, num);
       current = current ? `${current} ${p}` : `  ${p}`;
       inRow++;
     }
