@@ -1,0 +1,20 @@
+/**
+ * A vitest reporter that ends the run with one plain line, "tests: N passed,
+ * N failed, N skipped", which CI tooling reads regardless of the runner.
+ */
+import type { Reporter, TestModule } from 'vitest/node';
+
+export default class SummaryReporter implements Reporter {
+  onTestRunEnd(modules: ReadonlyArray<TestModule>): void {
+    let passed = 0, failed = 0, skipped = 0;
+    for (const m of modules) {
+      for (const t of m.children.allTests()) {
+        const state = t.result().state;
+        if (state === 'passed') passed++;
+        else if (state === 'failed') failed++;
+        else skipped++;
+      }
+    }
+    process.stdout.write(`\ntests: ${passed} passed, ${failed} failed, ${skipped} skipped\n`);
+  }
+}
