@@ -16,30 +16,8 @@ export interface ParsedArgs {
 
 export class UsageError extends Error {}
 
-export function editDistance(a: string, b: string): number {
-  const d = Array.from({ length: a.length + 1 }, (_, i) => [i, ...Array(b.length).fill(0)] as number[]);
-  for (let j = 1; j <= b.length; j++) d[0][j] = j;
-  for (let i = 1; i <= a.length; i++) {
-    for (let j = 1; j <= b.length; j++) {
-      d[i][j] = Math.min(d[i - 1][j] + 1, d[i][j - 1] + 1, d[i - 1][j - 1] + (a[i - 1] === b[j - 1] ? 0 : 1));
-    }
-  }
-  return d[a.length][b.length];
-}
-
-/** The candidate closest to `word`, if it is close enough to be a likely typo. */
-export function nearest(word: string, candidates: Iterable<string>): string | null {
-  let best: string | null = null;
-  let bestD = Infinity;
-  for (const c of candidates) {
-    const d = editDistance(word.toLowerCase(), c.toLowerCase());
-    if (d < bestD) {
-      bestD = d;
-      best = c;
-    }
-  }
-  return best !== null && bestD <= Math.max(2, Math.floor(word.length / 3)) ? best : null;
-}
+export { nearest } from '../format/suggest.js';
+import { nearest } from '../format/suggest.js';
 
 export function parseArgs(argv: readonly string[], specs: readonly FlagSpec[]): ParsedArgs {
   const byName = new Map(specs.map((s) => [s.name, s]));

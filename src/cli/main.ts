@@ -1,10 +1,11 @@
 /** The scatterbook command line: dispatch, usage, exit codes. */
 import { nearest, UsageError } from './args.js';
 import { EXIT, type Command, type ExitCode } from './command.js';
+import { figuresCommand } from './figures-command.js';
 import { readCommand } from './read-command.js';
 import type { Terminal } from './terminal.js';
 
-export const COMMANDS: readonly Command[] = [readCommand];
+export const COMMANDS: readonly Command[] = [readCommand, figuresCommand];
 
 export function usage(): string {
   const lines = ['scatterbook: checked RF component datasheets from Touchstone measurements', '', 'commands:'];

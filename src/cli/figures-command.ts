@@ -1,0 +1,95 @@
+/**
+ * `scatterbook figures PART.yaml [--json] [--strict]`: every figure of a part
+ * over every unit, checked against its limits, with where the worst sits.
+ */
+import { dirname, resolve } from 'node:path';
+import type { CheckResult, PartResult } from '../evaluate/evaluate.js';
+import { formatFrequency } from '../format/units.js';
+import { formatLimit, formatValue } from '../format/values.js';
+import { evaluatePartFile } from '../pipeline/part.js';
+import { formatSpecError } from '../spec/diagnostics.js';
+import { parseArgs, UsageError, type FlagSpec } from './args.js';
+import { EXIT, type Command } from './command.js';
+import { painter, type Painter, type Terminal } from './terminal.js';
+
+const FLAGS: FlagSpec[] = [
+  { name: 'json', help: 'print the results as JSON on stdout' },
+  { name: 'strict', help: 'exit 3 when a limit fails' },
+];
+
+/** The JSON of `figures --json`: exactly the documented keys. */
+export function figuresJson(r: PartResult): object {
+  return {
+    part: r.part,
+    revision: r.revision,
+    pass: r.pass,
+    results: r.results.map((c) => ({
+      figure: c.figure,
+      on: c.on,
+      band: c.band,
+      fromHz: c.fromHz,
+      toHz: c.toHz,
+      unit: c.unit,
+      limit: c.limit,
+      worst: c.worst,
+      worstAtHz: c.worstAtHz,
+      worstUnit: c.worstUnit,
+      worstOn: c.worstOn,
+      typical: c.typical,
+      margin: c.margin,
+      pass: c.pass,
+      units: c.units.map((u) => ({ unit: u.unit, worst: u.worst, atHz: u.atHz, margin: u.margin, pass: u.pass })),
+    })),
+  };
+}
+
+function verdict(c: CheckResult, p: Painter): string {
+  if (c.pass === null) return 'report';
+  return c.pass ? p.green('PASS') : p.red('FAIL');
+}
+
+/** Pads to a width measured in characters that show (colour codes excluded). */
+function pad(s: string, width: number): string {
+  const visible = s.replace(/\x1b\[[0-9;]*m/g, '').length;
+  return s + ' '.repeat(Math.max(0, width - visible));
+}
+
+export function figuresTable(r: PartResult, p: Painter): string {
+  const head = ['figure', 'on', 'band', 'limit', 'typical', 'worst', 'at', 'margin', ''];
+  const rows = r.results.map((c) => [
+    c.label,
+    c.on.join(' '),
+    c.band,
+    formatLimit(c.limit, c.unit),
+    formatValue(c.typical, c.unit),
+    `${formatValue(c.worst, c.unit)} (${c.worstUnit})`,
+    c.worstAtHz === null ? '—' : formatFrequency(c.worstAtHz),
+    c.margin === null ? '—' : formatValue(c.margin, c.unit),
+    verdict(c, p),
+  ]);
+  const widths = head.map((h, i) => Math.max(h.length, ...rows.map((row) => row[i].replace(/\x1b\[[0-9;]*m/g, '').length)));
+  const line = (cells: string[]) => cells.map((c, i) => pad(c, widths[i])).join('  ').trimEnd();
+  const total = r.pass ? p.green('PASS') : p.red('FAIL');
+  return [`${p.bold(r.part)} revision ${r.revision || '—'}: ${total}`, '', p.bold(line(head)), ...rows.map(line)].join('\n') + '\n';
+}
+
+export const figuresCommand: Command = {
+  name: 'figures',
+  summary: 'compute a part\'s figures over its measured units and check them against its limits',
+  usage: 'scatterbook figures PART.yaml [--json] [--strict]',
+  flags: FLAGS,
+  async run(argv, t: Terminal) {
+    const args = parseArgs(argv, FLAGS);
+    if (args.positionals.length !== 1) throw new UsageError('figures takes exactly one part file');
+    const file = args.positionals[0];
+    const path = resolve(t.cwd, file);
+    const outcome = await evaluatePartFile(path, dirname(path), file);
+    if (!outcome.result) {
+      for (const e of outcome.errors) t.stderr.write(`${formatSpecError(e, e.file === file ? outcome.source : undefined)}\n`);
+      return EXIT.badInput;
+    }
+    const r = outcome.result;
+    t.stdout.write(args.flags.has('json') ? `${JSON.stringify(figuresJson(r), null, 2)}\n` : figuresTable(r, painter(t.stdout, t.env)));
+    return !r.pass && args.flags.has('strict') ? EXIT.limitFailed : EXIT.ok;
+  },
+};

@@ -1,0 +1,254 @@
+/**
+ * NormalizedPart + measured networks → results, by these rules:
+ *
+ * - margin (positive = passing): max → max − value; min → value − min; both →
+ *   the smaller of the two; nominal ± tolerance → tolerance − |value − nominal|.
+ * - A unit's worst: over every point of the band set and every item of `on`,
+ *   the value with the least margin; ties go to the lowest frequency, then to
+ *   the first item. Without a limit, the figure's bad direction decides
+ *   (highest insertion loss, lowest return loss, furthest from nominal).
+ * - A result's worst: the unit worst with the least margin (ties: lowest
+ *   frequency, then the first unit); typical: the median of the unit worsts;
+ *   pass: every unit's margin ≥ 0.
+ * - `when` restricts a check to the units whose conditions match.
+ */
+import { FigureUndefined, type FigureContext, type Item } from '../figures/types.js';
+import { formatFrequency } from '../format/units.js';
+import type { Network } from '../network/network.js';
+import type { Position, SpecError } from '../spec/diagnostics.js';
+import type { Limit, NormalizedCheck, NormalizedPart } from '../spec/normalize.js';
+import { parameterName } from '../spec/parameter.js';
+import { bandSet } from './band.js';
+import { median } from './stats.js';
+
+export interface UnitData {
+  readonly unit: string;
+  readonly file: string;
+  readonly network: Network;
+  readonly conditions: Readonly<Record<string, string>>;
+  readonly fileAt: Position;
+}
+
+export interface UnitResult {
+  readonly unit: string;
+  readonly worst: number;
+  readonly atHz: number | null;
+  readonly worstOn: string;
+  readonly margin: number | null;
+  readonly pass: boolean | null;
+}
+
+export interface CheckResult {
+  readonly kind: 'limit' | 'report';
+  readonly figure: string;
+  readonly label: string;
+  readonly on: readonly string[];
+  readonly band: string;
+  readonly fromHz: number;
+  readonly toHz: number;
+  readonly unit: string;
+  readonly limit: Limit | null;
+  readonly worst: number;
+  readonly worstAtHz: number | null;
+  readonly worstUnit: string;
+  readonly worstOn: string;
+  readonly typical: number;
+  readonly margin: number | null;
+  readonly pass: boolean | null;
+  readonly units: readonly UnitResult[];
+}
+
+export interface PartResult {
+  readonly part: string;
+  readonly revision: string;
+  /** Every limit passes (reported figures do not count). */
+  readonly pass: boolean;
+  readonly results: readonly CheckResult[];
+}
+
+export function marginOf(limit: Limit, v: number): number {
+  if (limit.tolerance !== undefined && limit.nominal !== undefined) return limit.tolerance - Math.abs(v - limit.nominal);
+  let m = Infinity;
+  if (limit.max !== undefined) m = Math.min(m, limit.max - v);
+  if (limit.min !== undefined) m = Math.min(m, v - limit.min);
+  return m;
+}
+
+/** The number that is smallest for the worst value: the margin, or the bad direction without a limit. */
+function scorer(check: NormalizedCheck): (v: number) => number {
+  if (check.limit) {
+    const limit = check.limit;
+    return (v) => marginOf(limit, v);
+  }
+  switch (check.figure.worse) {
+    case 'higher':
+      return (v) => -v;
+    case 'lower':
+      return (v) => v;
+    case 'nominal': {
+      const nominal = check.nominal ?? 0;
+      return (v) => -Math.abs(v - nominal);
+    }
+  }
+}
+
+class EvaluationError extends Error {
+  constructor(readonly error: SpecError) {
+    super(error.message);
+  }
+}
+
+export function evaluatePart(part: NormalizedPart, units: readonly UnitData[]): { value: PartResult | null; errors: SpecError[] } {
+  const errors: SpecError[] = [];
+  const fail = (code: SpecError['code'], at: Position, message: string) => errors.push({ code, file: part.file, message, ...at });
+
+  // every unit's file must have the same port count, and every check's ports must exist
+  if (units.length > 0) {
+    const n0 = units[0].network.ports;
+    for (const u of units.slice(1)) {
+      if (u.network.ports !== n0) fail('port-count-mismatch', u.fileAt, `unit ${u.unit} (${u.file}) has ${u.network.ports} ports but unit ${units[0].unit} (${units[0].file}) has ${n0}; every unit of a part must have the same ports`);
+    }
+  }
+  const ports = units.length ? units[0].network.ports : 0;
+  for (const c of part.checks) {
+    for (const item of c.items) {
+      for (const p of item.params) {
+        const top = Math.max(p.to, p.from);
+        if (top > ports) {
+          fail('port-range', c.onAt, `${parameterName(p)} needs port ${top}, but the measured files have ${ports} port${ports === 1 ? '' : 's'}${c.figure.operands === 'port-pair' ? ' (set ports: [a, b] for the stability figures)' : ''}`);
+        }
+      }
+    }
+  }
+  if (errors.length) return { value: null, errors };
+
+  const results: CheckResult[] = [];
+  for (const check of part.checks) {
+    try {
+      results.push(evaluateCheck(part, check, units));
+    } catch (e) {
+      if (!(e instanceof EvaluationError)) throw e;
+      errors.push(e.error);
+    }
+  }
+  if (errors.length) return { value: null, errors };
+  const pass = results.every((r) => r.kind !== 'limit' || r.pass === true);
+  return { value: { part: part.part, revision: part.revision, pass, results }, errors };
+}
+
+function evaluateCheck(part: NormalizedPart, check: NormalizedCheck, all: readonly UnitData[]): CheckResult {
+  const problem = (code: SpecError['code'], message: string, at: Position = check.at): never => {
+    throw new EvaluationError({ code, file: part.file, message, ...at });
+  };
+  const when = check.when;
+  const units = when ? all.filter((u) => Object.entries(when).every(([k, v]) => u.conditions[k] === v)) : all;
+  if (units.length === 0) problem('unknown-condition', `no measured unit matches when: ${JSON.stringify(when)}`);
+  const score = scorer(check);
+  const band = check.band;
+  const unitResults: UnitResult[] = [];
+  for (const u of units) {
+    const f = u.network.freqHz;
+    const lo = f[0], hi = f[f.length - 1];
+    if (band.fromHz < lo || band.toHz > hi) {
+      problem('band-outside-data', `band ${band.name} (${formatFrequency(band.fromHz)} to ${formatFrequency(band.toHz)}) reaches outside the measured range of ${u.file} (${formatFrequency(lo)} to ${formatFrequency(hi)})`, band.at);
+    }
+    const ctx: FigureContext = {
+      network: u.network,
+      part: { partClass: part.partClass, ways: part.ways, phaseSplitDeg: part.phaseSplitDeg },
+      aperture: check.aperture,
+      levelDb: check.levelDb,
+      nominal: check.nominal,
+      band: { fromHz: band.fromHz, toHz: band.toHz },
+    };
+    let best: { value: number; atHz: number | null; score: number; on: string } | null = null;
+    for (const item of check.items) {
+      const candidate = evaluateItem(check, ctx, item, u, score, problem);
+      if (!best || candidate.score < best.score || (candidate.score === best.score && candidate.atHz !== null && best.atHz !== null && candidate.atHz < best.atHz)) {
+        best = candidate;
+      }
+    }
+    const b = best as NonNullable<typeof best>;
+    const margin = check.limit ? marginOf(check.limit, b.value) : null;
+    unitResults.push({ unit: u.unit, worst: b.value, atHz: b.atHz, worstOn: b.on, margin, pass: margin === null ? null : margin >= 0 });
+  }
+  let worst = unitResults[0];
+  for (const r of unitResults.slice(1)) {
+    const a = score(r.worst), w = score(worst.worst);
+    if (a < w || (a === w && r.atHz !== null && worst.atHz !== null && r.atHz < worst.atHz)) worst = r;
+  }
+  const limit = check.limit;
+  return {
+    kind: check.kind,
+    figure: check.figure.id,
+    label: check.label,
+    on: check.on,
+    band: band.name,
+    fromHz: band.fromHz,
+    toHz: band.toHz,
+    unit: check.figure.unit,
+    limit,
+    worst: worst.worst,
+    worstAtHz: worst.atHz,
+    worstUnit: worst.unit,
+    worstOn: worst.worstOn,
+    typical: median(unitResults.map((r) => r.worst)),
+    margin: worst.margin,
+    pass: limit ? unitResults.every((r) => r.pass === true) : null,
+    units: unitResults,
+  };
+}
+
+function evaluateItem(
+  check: NormalizedCheck,
+  ctx: FigureContext,
+  item: Item,
+  u: UnitData,
+  score: (v: number) => number,
+  problem: (code: SpecError['code'], message: string) => never,
+): { value: number; atHz: number | null; score: number; on: string } {
+  const fig = check.figure;
+  const where = `${fig.id} on ${item.label} in unit ${u.unit} (${u.file})`;
+  if (fig.shape === 'scalar') {
+    let v: number;
+    try {
+      v = (fig.scalar as NonNullable<typeof fig.scalar>)(ctx, item);
+    } catch (e) {
+      if (e instanceof FigureUndefined) problem('figure-undefined', `${where}: ${e.message}`);
+      throw e;
+    }
+    return { value: v, atHz: null, score: score(v), on: item.label };
+  }
+  let values: Float64Array;
+  try {
+    values = (fig.perPoint as NonNullable<typeof fig.perPoint>)(ctx, item);
+  } catch (e) {
+    if (e instanceof FigureUndefined) problem('figure-undefined', `${where}: ${e.message}`);
+    problem('bad-expression', `${where}: ${(e as Error).message}`);
+  }
+  const set = bandSet(ctx.network.freqHz, values, ctx.band.fromHz, ctx.band.toHz);
+  for (let k = 0; k < set.values.length; k++) {
+    if (Number.isNaN(set.values[k])) {
+      problem('figure-undefined', `${where} has no value at ${formatFrequency(set.freqHz[k])}${fig.undefinedWhere ? `: it is not defined where ${fig.undefinedWhere}` : ''}`);
+    }
+  }
+  if (fig.shape === 'span') {
+    let max = -Infinity, min = Infinity;
+    for (const v of set.values) {
+      if (v > max) max = v;
+      if (v < min) min = v;
+    }
+    const v = max - min;
+    return { value: v, atHz: null, score: score(v), on: item.label };
+  }
+  let bestK = 0;
+  let bestS = score(set.values[0]);
+  for (let k = 1; k < set.values.length; k++) {
+    const s = score(set.values[k]);
+    if (s < bestS) {
+      bestS = s;
+      bestK = k;
+    }
+  }
+  return { value: set.values[bestK], atHz: set.freqHz[bestK], score: bestS, on: item.label };
+}
+

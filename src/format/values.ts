@@ -1,0 +1,40 @@
+/** Figure values and limits as people read them in tables. */
+import type { Limit } from '../spec/normalize.js';
+import { fixed, formatFrequency } from './units.js';
+
+/** A value in its figure's unit: "1.31 dB", "4.78 ns", "2.45 GHz", "1.222". */
+export function formatValue(v: number | null, unit: string): string {
+  if (v === null) return '—';
+  if (!Number.isFinite(v)) return v > 0 ? '∞' : v < 0 ? '−∞' : 'n/a';
+  switch (unit) {
+    case 'dB':
+      return `${fixed(v, 2)} dB`;
+    case 'deg':
+      return `${fixed(v, 2)}°`;
+    case 's':
+      return formatTime(v);
+    case 'Hz':
+      return formatFrequency(v, 7);
+    default:
+      return fixed(v, 3);
+  }
+}
+
+export function formatTime(s: number): string {
+  const a = Math.abs(s);
+  if (a >= 1e-3) return `${fixed(s * 1e3, 3)} ms`;
+  if (a >= 1e-6) return `${fixed(s * 1e6, 3)} µs`;
+  if (a >= 1e-9 || a === 0) return `${fixed(s * 1e9, 3)} ns`;
+  return `${fixed(s * 1e12, 2)} ps`;
+}
+
+/** "≤ 1.20 dB", "≥ 18.00 dB", "20.00 dB ± 1.00 dB", "0.50 dB to 2.00 dB". */
+export function formatLimit(limit: Limit | null, unit: string): string {
+  if (!limit) return '—';
+  if (limit.tolerance !== undefined) return `${formatValue(limit.nominal ?? 0, unit)} ± ${formatValue(limit.tolerance, unit).replace(/^−/, '')}`;
+  if (limit.max !== undefined && limit.min !== undefined) return `${formatValue(limit.min, unit)} to ${formatValue(limit.max, unit)}`;
+  if (limit.max !== undefined) return `≤ ${formatValue(limit.max, unit)}`;
+  if (limit.min !== undefined) return `≥ ${formatValue(limit.min, unit)}`;
+  return '—';
+}
+

@@ -1,0 +1,93 @@
+/**
+ * One part from disk: its YAML, its measured files, its figures. The only
+ * stage that touches files for a part; everything it calls is pure.
+ */
+import { readFileSync, realpathSync, statSync } from 'node:fs';
+import { dirname, isAbsolute, relative, resolve, sep } from 'node:path';
+import { evaluatePart, type PartResult, type UnitData } from '../evaluate/evaluate.js';
+import { loadExpressionCompiler, type ExpressionCompiler } from '../figures/expression.js';
+import { readTouchstoneFile } from '../io/touchstone-file.js';
+import type { SpecError } from '../spec/diagnostics.js';
+import { loadPartText, needsExpressions } from '../spec/load.js';
+import type { NormalizedPart } from '../spec/normalize.js';
+import type { TouchstoneData } from '../touchstone/normalize.js';
+
+export interface LoadedUnit extends UnitData {
+  readonly data: TouchstoneData;
+  readonly path: string;
+  readonly bytes: number;
+}
+
+export interface PartOutcome {
+  /** The part file's text, for messages that quote it. */
+  readonly source: string;
+  readonly part: NormalizedPart | null;
+  readonly units: readonly LoadedUnit[];
+  readonly result: PartResult | null;
+  readonly errors: readonly SpecError[];
+}
+
+let compiler: Promise<ExpressionCompiler> | null = null;
+
+/** True when `target` lies inside `root` (both resolved, links followed where they exist). */
+export function isInside(root: string, target: string): boolean {
+  const real = (p: string) => {
+    try {
+      return realpathSync(p);
+    } catch {
+      return resolve(p);
+    }
+  };
+  const rel = relative(real(root), real(target));
+  return rel === '' || (!rel.startsWith(`..${sep}`) && rel !== '..' && !isAbsolute(rel));
+}
+
+/**
+ * @param partFile  the part.yaml path
+ * @param contentRoot  measurement files must stay inside this folder (a build's content folder;
+ *   the part file's own folder for a standalone `figures`)
+ * @param displayName  how messages name the part file
+ */
+export async function evaluatePartFile(partFile: string, contentRoot: string, displayName = partFile): Promise<PartOutcome> {
+  let source: string;
+  try {
+    source = readFileSync(partFile, 'utf8');
+  } catch (e) {
+    const code = (e as NodeJS.ErrnoException).code;
+    return { source: '', part: null, units: [], result: null, errors: [{ code: 'missing-file', file: displayName, line: 0, column: 0, message: code === 'ENOENT' ? 'no such part file' : `cannot read the part file: ${(e as Error).message}` }] };
+  }
+  const compile = needsExpressions(source) ? await (compiler ??= loadExpressionCompiler()) : undefined;
+  const loaded = loadPartText(source, displayName, compile);
+  if (!loaded.value) return { source, part: null, units: [], result: null, errors: loaded.errors };
+  const part = loaded.value;
+  const base = dirname(partFile);
+  const errors: SpecError[] = [];
+  const units: LoadedUnit[] = [];
+  for (const m of part.measurements) {
+    const path = resolve(base, m.file);
+    if (isAbsolute(m.file) || !isInside(contentRoot, path)) {
+      errors.push({ code: 'path-outside', file: displayName, ...m.fileAt, message: `measurement file "${m.file}" of unit ${m.unit} lies outside the content folder ${relative(process.cwd(), contentRoot) || '.'}; files must stay inside it` });
+      continue;
+    }
+    let isFile = false;
+    try {
+      isFile = statSync(path).isFile();
+    } catch {
+      isFile = false;
+    }
+    if (!isFile) {
+      errors.push({ code: 'missing-file', file: displayName, ...m.fileAt, message: `measurement file "${m.file}" of unit ${m.unit} does not exist (looked for ${relative(process.cwd(), path)})` });
+      continue;
+    }
+    const r = readTouchstoneFile(path);
+    if (!r.value) {
+      const fileLabel = relative(process.cwd(), path);
+      for (const e of r.errors) errors.push({ code: 'touchstone', file: fileLabel, line: e.line, column: e.column ?? (e.line ? 1 : 0), message: e.message });
+      continue;
+    }
+    units.push({ unit: m.unit, file: m.file, network: r.value.network, conditions: m.conditions, fileAt: m.fileAt, data: r.value, path, bytes: r.bytes });
+  }
+  if (errors.length) return { source, part, units, result: null, errors };
+  const evaluated = evaluatePart(part, units);
+  return { source, part, units, result: evaluated.value, errors: evaluated.errors };
+}

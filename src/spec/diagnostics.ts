@@ -1,0 +1,54 @@
+/**
+ * Errors of part files and of their evaluation, as data: a code from a closed
+ * set, the file, a 1-based line and column (0 when the file as a whole is
+ * meant), and a message saying what was wrong and what was expected.
+ */
+export type SpecErrorCode =
+  | 'yaml-syntax'
+  | 'unknown-key'
+  | 'missing-key'
+  | 'wrong-type'
+  | 'bad-value'
+  | 'unknown-class'
+  | 'unknown-figure'
+  | 'unknown-band'
+  | 'unknown-condition'
+  | 'bare-frequency'
+  | 'missing-unit'
+  | 'unit-mismatch'
+  | 'bad-parameter'
+  | 'port-range'
+  | 'port-count-mismatch'
+  | 'path-outside'
+  | 'missing-file'
+  | 'touchstone'
+  | 'band-outside-data'
+  | 'empty-band'
+  | 'bad-limit'
+  | 'bad-expression'
+  | 'figure-undefined'
+  | 'duplicate';
+
+export interface Position {
+  readonly line: number;
+  readonly column: number;
+}
+
+export interface SpecError extends Position {
+  readonly code: SpecErrorCode;
+  readonly file: string;
+  readonly message: string;
+}
+
+export const NOWHERE: Position = { line: 0, column: 0 };
+
+/** `FILE:LINE:COL: error: message`, then the source line and a caret under the fault when the text is known. */
+export function formatSpecError(e: SpecError, source?: string): string {
+  const where = e.line > 0 ? `${e.file}:${e.line}:${e.column}` : e.file;
+  let out = `${where}: error: ${e.message}`;
+  if (source && e.line > 0) {
+    const text = source.split(/\r?\n/)[e.line - 1];
+    if (text !== undefined) out += `\n  ${text}\n  ${' '.repeat(Math.max(0, e.column - 1))}^`;
+  }
+  return out;
+}

@@ -1,0 +1,44 @@
+/**
+ * Part file text → NormalizedPart, in stages: YAML 1.2 parse (so that `on`
+ * stays a key, not the boolean YAML 1.1 makes of it) → schema check
+ * (validate.ts) → normalization (normalize.ts). All errors of a file come back
+ * at once, each with its line and column.
+ */
+import { LineCounter, parseDocument } from 'yaml';
+import type { ExpressionCompiler } from '../figures/expression.js';
+import type { SpecError } from './diagnostics.js';
+import { normalizePart, type NormalizedPart } from './normalize.js';
+import { PART_SCHEMA } from './part-schema.js';
+import { validate } from './validate.js';
+
+export interface LoadResult {
+  readonly value: NormalizedPart | null;
+  readonly errors: readonly SpecError[];
+}
+
+/** Whether the text declares custom figures (so the caller knows to load the expression compiler). */
+export function needsExpressions(text: string): boolean {
+  return /^custom-figures\s*:/m.test(text);
+}
+
+export function loadPartText(text: string, file: string, compile?: ExpressionCompiler): LoadResult {
+  const lines = new LineCounter();
+  const doc = parseDocument(text, { version: '1.2', lineCounter: lines, prettyErrors: false, uniqueKeys: true });
+  if (doc.errors.length) {
+    return {
+      value: null,
+      errors: doc.errors.map((e) => {
+        const p = e.linePos?.[0] ?? { line: 0, col: 0 };
+        const message = e.code === 'DUPLICATE_KEY' ? 'a key is given twice in the same mapping; give each key once' : `YAML syntax: ${e.message.split(' at line')[0]}`;
+        return { code: 'yaml-syntax' as const, file, message, line: p.line, column: p.col };
+      }),
+    };
+  }
+  if (doc.contents === null) {
+    return { value: null, errors: [{ code: 'missing-key', file, message: 'the part file is empty; it needs at least part, class and measurements', line: 0, column: 0 }] };
+  }
+  const checked = validate(doc.contents, PART_SCHEMA, file, lines);
+  const normalized = normalizePart({ file, value: checked.value, positions: checked.positions, compile });
+  const errors = [...checked.errors, ...normalized.errors].sort((a, b) => a.line - b.line || a.column - b.column);
+  return { value: errors.length ? null : normalized.value, errors };
+}

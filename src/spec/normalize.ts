@@ -1,0 +1,361 @@
+/**
+ * The part file as written (validated against the schema) → NormalizedPart:
+ * quantities in base units (Hz, dB, deg, s), parameters parsed, figures and
+ * bands resolved, defaults filled in. Every problem is collected, each at its
+ * line and column; nothing is thrown.
+ */
+import { FIGURES } from '../figures/registry.js';
+import type { CompiledExpression, ExpressionCompiler } from '../figures/expression.js';
+import type { FigureDef, FigureUnit, Item } from '../figures/types.js';
+import { nearest } from '../format/suggest.js';
+import type { Position, SpecError, SpecErrorCode } from './diagnostics.js';
+import { parameterName, parseParameter, type SParameter } from './parameter.js';
+import type { PartClass } from './part-schema.js';
+import { parseQuantity, KIND_NAMES, type QuantityKind } from './quantity.js';
+import type { Plain } from './validate.js';
+
+export interface NormalizedBand {
+  readonly name: string;
+  readonly fromHz: number;
+  readonly toHz: number;
+  readonly at: Position;
+}
+
+export interface NormalizedMeasurement {
+  readonly unit: string;
+  /** As written in the part file, relative to it. */
+  readonly file: string;
+  readonly conditions: Readonly<Record<string, string>>;
+  readonly notes: string | null;
+  readonly at: Position;
+  readonly fileAt: Position;
+}
+
+export interface Limit {
+  readonly max?: number;
+  readonly min?: number;
+  readonly nominal?: number;
+  readonly tolerance?: number;
+}
+
+export interface NormalizedCheck {
+  readonly kind: 'limit' | 'report';
+  readonly figure: FigureDef;
+  readonly items: readonly Item[];
+  /** The parameters the result covers, named as in the trade (stability: the four of the port pair). */
+  readonly on: readonly string[];
+  readonly band: NormalizedBand;
+  readonly limit: Limit | null;
+  /** The nominal the figure works around (the limit's, or the figure's default), or null. */
+  readonly nominal: number | null;
+  readonly when: Readonly<Record<string, string>> | null;
+  readonly aperture: number;
+  readonly levelDb: number;
+  readonly label: string;
+  readonly at: Position;
+  readonly onAt: Position;
+}
+
+export interface NormalizedPart {
+  readonly file: string;
+  readonly part: string;
+  readonly title: string;
+  readonly partClass: PartClass;
+  readonly revision: string;
+  readonly date: string | null;
+  readonly vendor: string | null;
+  readonly description: string | null;
+  readonly notes: string | null;
+  readonly packageText: string | null;
+  readonly connector: string | null;
+  readonly operatingTemperature: string | null;
+  readonly portNames: Readonly<Record<number, string>>;
+  readonly ways: number | null;
+  readonly phaseSplitDeg: number | null;
+  readonly measurements: readonly NormalizedMeasurement[];
+  readonly bands: ReadonlyMap<string, NormalizedBand>;
+  readonly checks: readonly NormalizedCheck[];
+  readonly ratings: ReadonlyArray<{ readonly parameter: string; readonly value: string; readonly notes: string | null }>;
+  readonly cautions: readonly string[];
+  /** The part file as written (after schema checks), for pages that show it. */
+  readonly spec: Readonly<Record<string, Plain>>;
+}
+
+const KIND_OF_UNIT: Record<FigureUnit, QuantityKind> = { dB: 'dB', deg: 'deg', s: 'time', Hz: 'frequency', '': 'unitless' };
+
+export function conditionText(v: Plain): string {
+  return String(v).trim().replace(/\s+/g, ' ');
+}
+
+type Obj = Record<string, Plain>;
+const isObj = (v: Plain | undefined): v is Obj => typeof v === 'object' && v !== null && !Array.isArray(v);
+const str = (v: Plain | undefined): string | null => (typeof v === 'string' ? v : typeof v === 'number' ? String(v) : null);
+
+export interface NormalizeInput {
+  readonly file: string;
+  readonly value: Plain;
+  readonly positions: ReadonlyMap<string, Position>;
+  /** Needed only when the part has custom figures. */
+  readonly compile?: ExpressionCompiler;
+}
+
+export function normalizePart(input: NormalizeInput): { value: NormalizedPart | null; errors: SpecError[] } {
+  const errors: SpecError[] = [];
+  const at = (path: string): Position => input.positions.get(path) ?? { line: 0, column: 0 };
+  const err = (code: SpecErrorCode, path: string, message: string) => errors.push({ code, file: input.file, message, ...at(path) });
+  const spec = isObj(input.value) ? input.value : {};
+
+  // bands
+  const bands = new Map<string, NormalizedBand>();
+  if (isObj(spec.bands)) {
+    for (const [name, b] of Object.entries(spec.bands)) {
+      if (!isObj(b) || b.from === undefined || b.to === undefined) continue;
+      const from = parseQuantity(b.from as string), to = parseQuantity(b.to as string);
+      if (!from.ok || !to.ok) continue;
+      if (!(to.value > from.value)) {
+        err('bad-value', `bands.${name}.to`, `band ${name} must end above where it starts (${b.from} to ${b.to})`);
+        continue;
+      }
+      bands.set(name, { name, fromHz: from.value, toHz: to.value, at: at(`bands.${name}`) });
+    }
+  }
+
+  const partClass = (typeof spec.class === 'string' ? spec.class : 'generic') as PartClass;
+  const ways = typeof spec.ways === 'number' ? spec.ways : null;
+  const split = typeof spec['phase-split'] === 'string' || typeof spec['phase-split'] === 'number' ? parseQuantity(spec['phase-split']) : null;
+  const phaseSplitDeg = split && split.ok ? split.value : null;
+  const partCtx = { partClass, ways, phaseSplitDeg };
+
+  // measurements
+  const measurements: NormalizedMeasurement[] = [];
+  const seenUnits = new Map<string, number>();
+  if (Array.isArray(spec.measurements)) {
+    spec.measurements.forEach((m, i) => {
+      if (!isObj(m) || str(m.unit) === null || typeof m.file !== 'string') return;
+      const unit = str(m.unit) as string;
+      if (seenUnits.has(unit)) err('duplicate', `measurements.${i}.unit`, `unit ${unit} is listed twice (entries ${(seenUnits.get(unit) as number) + 1} and ${i + 1}); each measured unit once`);
+      seenUnits.set(unit, i);
+      const conditions: Record<string, string> = {};
+      if (isObj(m.conditions)) for (const [k, v] of Object.entries(m.conditions)) conditions[k] = conditionText(v);
+      measurements.push({ unit, file: m.file, conditions, notes: str(m.notes), at: at(`measurements.${i}`), fileAt: at(`measurements.${i}.file`) });
+    });
+  }
+
+  // custom figures
+  const custom = new Map<string, FigureDef>();
+  if (isObj(spec['custom-figures'])) {
+    for (const [name, c] of Object.entries(spec['custom-figures'])) {
+      if (!isObj(c) || typeof c.expression !== 'string' || typeof c.unit !== 'string' || typeof c.worse !== 'string') continue;
+      if (FIGURES.has(name)) {
+        err('duplicate', `custom-figures#${name}`, `custom figure "${name}" has the name of a built-in figure; choose another name`);
+        continue;
+      }
+      if (!input.compile) throw new Error('internal: a part with custom figures needs an expression compiler');
+      const compiled = input.compile(c.expression);
+      if (!compiled.ok) {
+        err('bad-expression', `custom-figures.${name}.expression`, compiled.message);
+        continue;
+      }
+      custom.set(name, customFigure(name, c, compiled.value));
+    }
+  }
+
+  // checks: limits, then reported figures
+  const checks: NormalizedCheck[] = [];
+  for (const kind of ['limit', 'report'] as const) {
+    const list = spec[kind === 'limit' ? 'limits' : 'report'];
+    if (!Array.isArray(list)) continue;
+    list.forEach((entry, i) => {
+      if (!isObj(entry)) return;
+      const c = normalizeCheck(kind, entry, `${kind === 'limit' ? 'limits' : 'report'}.${i}`);
+      if (c) checks.push(c);
+    });
+  }
+
+  function normalizeCheck(kind: 'limit' | 'report', e: Obj, path: string): NormalizedCheck | null {
+    const before = errors.length;
+    const figureName = typeof e.figure === 'string' ? e.figure : '';
+    const figure = FIGURES.get(figureName) ?? custom.get(figureName);
+    if (!figure) {
+      const near = nearest(figureName, [...FIGURES.keys(), ...custom.keys()]);
+      err('unknown-figure', `${path}.figure`, `unknown figure "${figureName}"${near ? `; did you mean "${near}"?` : `; expected one of ${[...FIGURES.keys()].join(', ')}${custom.size ? ` or a custom figure (${[...custom.keys()].join(', ')})` : ''}`}`);
+      return null;
+    }
+    const bandName = typeof e.band === 'string' ? e.band : '';
+    const band = bands.get(bandName);
+    if (!band && typeof e.band === 'string') {
+      const near = nearest(bandName, bands.keys());
+      err('unknown-band', `${path}.band`, `band "${bandName}" is not defined${near ? `; did you mean "${near}"?` : bands.size ? `; the bands are ${[...bands.keys()].join(', ')}` : '; define it under bands:'}`);
+    }
+
+    // operands
+    const onList = Array.isArray(e.on) ? (e.on.filter((x) => typeof x === 'string') as string[]) : null;
+    const params: SParameter[] = [];
+    if (onList) {
+      onList.forEach((name, j) => {
+        const p = parseParameter(name);
+        if (!p.ok) err('bad-parameter', `${path}.on.${j}`, p.message);
+        else params.push(p.value);
+      });
+    }
+    let items: Item[] = [];
+    let on: string[] = [];
+    switch (figure.operands) {
+      case 'each':
+        if (!onList) err('missing-key', path, `${figure.id} needs "on": the S-parameter(s) it covers, e.g. on: S21`);
+        items = params.map((p) => ({ params: [p], label: parameterName(p) }));
+        on = items.map((it) => it.label);
+        break;
+      case 'pair':
+        if (!onList) err('missing-key', path, `${figure.id} needs "on": two S-parameters [A, B], e.g. on: [S21, S31]`);
+        else if (onList.length !== 2) err('bad-parameter', `${path}.on`, `${figure.id} takes exactly two S-parameters [A, B], got ${onList.length}`);
+        if (params.length === 2) items = [{ params, label: params.map(parameterName).join('/') }];
+        on = params.map(parameterName);
+        break;
+      case 'port-pair': {
+        if (onList) err('bad-parameter', `${path}.on`, `${figure.id} is computed from the four S-parameters of a port pair: give ports: [a, b] (default [1, 2]) instead of on`);
+        const ports = Array.isArray(e.ports) && e.ports.length === 2 ? (e.ports as number[]) : [1, 2];
+        if (ports[0] === ports[1]) err('bad-value', `${path}.ports`, `${figure.id} needs two different ports`);
+        const [a, b] = ports;
+        const four: SParameter[] = [{ to: a, from: a }, { to: b, from: a }, { to: a, from: b }, { to: b, from: b }];
+        items = [{ params: four, label: four.map(parameterName).join('/') }];
+        on = four.map(parameterName);
+        break;
+      }
+      case 'expression': {
+        if (onList) err('bad-parameter', `${path}.on`, `${figure.id} is a custom figure: its expression names the parameters, so it takes no "on"`);
+        const ps = (figure as CustomFigureDef).compiled.params;
+        items = [{ params: ps, label: (figure as CustomFigureDef).expression }];
+        on = [...new Set(ps.map(parameterName))];
+        break;
+      }
+    }
+    if (e.ports !== undefined && figure.operands !== 'port-pair') err('bad-value', `${path}.ports`, `"ports" belongs to the stability figures; ${figure.id} takes "on"`);
+    if (e.aperture !== undefined && !figure.accepts?.includes('aperture')) err('bad-value', `${path}.aperture`, `"aperture" belongs to group-delay figures; ${figure.id} has none`);
+    if (e.level !== undefined && !figure.accepts?.includes('level')) err('bad-value', `${path}.level`, `"level" belongs to bandwidth and center-frequency; ${figure.id} has none`);
+
+    // limit values: each must carry the figure's unit
+    const want = KIND_OF_UNIT[figure.unit];
+    const value = (key: 'max' | 'min' | 'nominal' | 'tolerance'): number | undefined => {
+      const raw = e[key];
+      if (raw === undefined || raw === null) return undefined;
+      const q = parseQuantity(raw as string | number);
+      if (!q.ok) return undefined; // reported by the schema check
+      if (q.kind !== want) {
+        const p = `${path}.${key}`;
+        if (q.kind === 'unitless' && want === 'frequency') err('bare-frequency', p, `${key} ${raw} of ${figure.id} has no unit; a frequency always carries one (Hz, kHz, MHz, GHz)`);
+        else if (q.kind === 'unitless') err('missing-unit', p, `${key} ${raw} of ${figure.id} has no unit; ${figure.id} is in ${figure.unit}: write ${raw} ${figure.unit === 's' ? 'ns' : figure.unit}`);
+        else err('unit-mismatch', p, `${key} "${raw}" of ${figure.id} is ${KIND_NAMES[q.kind]}; ${figure.id} is ${KIND_NAMES[want]}`);
+        return undefined;
+      }
+      return q.value;
+    };
+    let limit: Limit | null = null;
+    let nominal: number | null = null;
+    const bandCtx = band ?? { fromHz: 0, toHz: 0 };
+    if (kind === 'limit') {
+      const max = value('max'), min = value('min'), nom = value('nominal'), tol = value('tolerance');
+      const hasTol = e.tolerance !== undefined;
+      if (e.max === undefined && e.min === undefined && !hasTol) {
+        err('bad-limit', path, `limit on ${figure.id} gives no max, min or tolerance; expected max, min, both, or nominal ± tolerance (to report a figure without a limit, list it under report:)`);
+      } else if (hasTol && (e.max !== undefined || e.min !== undefined)) {
+        err('bad-limit', path, `limit on ${figure.id} mixes tolerance with max/min; give either max/min or nominal ± tolerance`);
+      } else if (e.nominal !== undefined && !hasTol) {
+        err('bad-limit', `${path}.nominal`, `nominal without tolerance: give tolerance, the half-width of the allowed window`);
+      } else if (hasTol) {
+        const n = nom ?? figure.defaultNominal?.({ part: partCtx, band: bandCtx });
+        if (n === undefined && e.nominal === undefined) err('bad-limit', `${path}.tolerance`, `${figure.id} has no default nominal; give nominal with the tolerance`);
+        if (tol !== undefined && tol < 0) err('bad-limit', `${path}.tolerance`, 'tolerance must not be negative');
+        if (n !== undefined && tol !== undefined) {
+          limit = { nominal: n, tolerance: tol };
+          nominal = n;
+        }
+      } else {
+        if (max !== undefined && min !== undefined && max < min) err('bad-limit', path, `max ${e.max} is below min ${e.min}`);
+        limit = { ...(max !== undefined ? { max } : {}), ...(min !== undefined ? { min } : {}) };
+      }
+    }
+    if (nominal === null && figure.defaultNominal) nominal = figure.defaultNominal({ part: partCtx, band: bandCtx }) ?? null;
+
+    // conditions
+    let when: Record<string, string> | null = null;
+    if (isObj(e.when)) {
+      when = {};
+      for (const [k, v] of Object.entries(e.when)) {
+        const text = conditionText(v);
+        when[k] = text;
+        if (!measurements.some((m) => m.conditions[k] === text)) {
+          const known = [...new Set(measurements.map((m) => m.conditions[k]).filter((x) => x !== undefined))];
+          err('unknown-condition', `${path}.when.${k}`, `no measured unit has ${k}: ${text}${known.length ? `; the units have ${k} ${known.join(', ')}` : `; no unit lists the condition "${k}"`}`);
+        }
+      }
+    }
+    const levelQ = e.level !== undefined ? parseQuantity(e.level as string) : null;
+    if (errors.length > before || !band) return null;
+    return {
+      kind,
+      figure,
+      items,
+      on,
+      band,
+      limit,
+      nominal,
+      when,
+      aperture: typeof e.aperture === 'number' ? e.aperture : 1,
+      levelDb: levelQ && levelQ.ok ? levelQ.value : 3,
+      label: typeof e.label === 'string' ? e.label : figure.title,
+      at: at(path),
+      onAt: at(`${path}.on`).line ? at(`${path}.on`) : at(path),
+    };
+  }
+
+  const portNames: Record<number, string> = {};
+  if (isObj(spec.ports)) for (const [k, v] of Object.entries(spec.ports)) if (typeof v === 'string') portNames[Number(k)] = v;
+  const ratings = Array.isArray(spec.ratings)
+    ? spec.ratings.filter(isObj).map((r) => ({ parameter: String(r.parameter ?? ''), value: String(r.value ?? ''), notes: str(r.notes) }))
+    : [];
+  const value: NormalizedPart = {
+    file: input.file,
+    part: str(spec.part) ?? '',
+    title: str(spec.title) ?? '',
+    partClass,
+    revision: str(spec.revision) ?? '',
+    date: str(spec.date),
+    vendor: str(spec.vendor),
+    description: str(spec.description),
+    notes: str(spec.notes),
+    packageText: str(spec.package),
+    connector: str(spec.connector),
+    operatingTemperature: str(spec['operating-temperature']),
+    portNames,
+    ways,
+    phaseSplitDeg,
+    measurements,
+    bands,
+    checks,
+    ratings,
+    cautions: Array.isArray(spec.cautions) ? spec.cautions.filter((c): c is string => typeof c === 'string') : [],
+    spec,
+  };
+  return { value: errors.length ? null : value, errors };
+}
+
+export interface CustomFigureDef extends FigureDef {
+  readonly expression: string;
+  readonly compiled: CompiledExpression;
+}
+
+function customFigure(name: string, c: Obj, compiled: CompiledExpression): CustomFigureDef {
+  return {
+    id: name,
+    title: typeof c.title === 'string' ? c.title : name,
+    unit: c.unit as FigureUnit,
+    operands: 'expression',
+    shape: 'trace',
+    worse: c.worse === 'lower' ? 'lower' : 'higher',
+    definition: `custom: ${c.expression as string}`,
+    expression: c.expression as string,
+    compiled,
+    perPoint: (ctx) => compiled.evaluate(ctx),
+  };
+}

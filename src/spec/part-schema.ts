@@ -1,0 +1,120 @@
+/**
+ * The part file, defined once. The validator reads it, the JSON Schema is
+ * generated from it (npm run schema → schema/part.schema.json), and the
+ * documentation's key list is checked against it.
+ */
+import { NAME_PATTERN, type Field, type Schema } from './schema-dsl.js';
+
+export const CLASSES = ['filter', 'attenuator', 'amplifier', 'divider', 'coupler', 'hybrid', 'circulator', 'isolator', 'cable', 'switch', 'balun', 'generic'] as const;
+export type PartClass = (typeof CLASSES)[number];
+
+const str = (description: string, extra: Partial<Extract<Schema, { t: 'string' }>> = {}): Schema => ({ t: 'string', description, ...extra });
+const text = (description: string): Schema => ({ t: 'text', description });
+const conditions: Schema = {
+  t: 'map',
+  keys: 'name',
+  description: 'Measurement conditions by name, e.g. temperature: 25 °C; units with equal conditions form a group',
+  value: { t: 'scalar', description: 'the condition\'s value as written (compared as text)' },
+};
+
+/** Fields shared by limits and reported figures. */
+const figureFields: Record<string, Field> = {
+  figure: { ...str('the figure: a name from the figure list or a key of custom-figures'), required: true },
+  on: {
+    t: 'oneOrMany',
+    description: 'the S-parameters it covers, e.g. S21 or [S11, S22]; S21 is into port 2 from port 1; ports above 9 need a comma: S10,12',
+    items: str('an S-parameter name such as S21 or S10,12'),
+  },
+  band: { ...str('the band (a key of bands) the figure is evaluated over'), required: true },
+  ports: { t: 'array', minItems: 2, maxItems: 2, items: { t: 'integer', min: 1, description: 'a port number' }, description: 'stability figures: the input and output port (default [1, 2])' },
+  aperture: { t: 'integer', min: 1, description: 'group delay: difference over ±N measured points (default 1, plain central differences)' },
+  level: { t: 'quantity', kinds: ['dB'], description: 'bandwidth and centre frequency: how far below the best insertion loss the band edges sit (default 3 dB)' },
+  when: { ...conditions, description: 'only the units measured under these conditions, e.g. {temperature: 85 °C}' },
+  label: str('a name for this row of the tables, replacing the figure name'),
+};
+
+const limitFields: Record<string, Field> = {
+  ...figureFields,
+  max: { t: 'quantity', description: 'the largest value allowed (with the figure\'s unit)' },
+  min: { t: 'quantity', description: 'the smallest value allowed' },
+  nominal: { t: 'quantity', description: 'the intended value; with tolerance, the allowed window is nominal ± tolerance' },
+  tolerance: { t: 'quantity', description: 'half the width of the allowed window around nominal (nominal defaults to the figure\'s own: 0 for balances)' },
+};
+
+export const PART_SCHEMA: Schema = {
+  t: 'object',
+  description: 'One component in a scatterbook catalog: what it is, its measured units, its bands and the limits its datasheet promises.',
+  fields: {
+    part: { ...text('the part number'), required: true },
+    title: str('a one-line title, e.g. Bandpass filter, 2.40–2.50 GHz'),
+    class: { ...str('the component class', { enum: CLASSES }), required: true },
+    revision: text('the revision of this datasheet'),
+    date: str('the date of this revision, YYYY-MM-DD', { pattern: '^\\d{4}-\\d{2}-\\d{2}$', patternHint: 'YYYY-MM-DD, e.g. 2026-11-20' }),
+    vendor: str('the vendor, when it differs from the catalog\'s'),
+    description: str('a paragraph describing the part'),
+    notes: str('notes for the datasheet, in Markdown (raw HTML is not rendered)'),
+    package: str('package or housing'),
+    connector: str('RF connectors'),
+    'operating-temperature': str('operating temperature range, e.g. −40 to +85 °C'),
+    ports: { t: 'map', keys: 'integer', value: str('the port\'s name'), description: 'port number → name (default "Port n")' },
+    ways: { t: 'integer', min: 2, description: 'dividers: the number of outputs N for excess loss (default: ports − 1)' },
+    'phase-split': { t: 'quantity', kinds: ['deg'], description: 'hybrids and baluns: the intended phase difference between outputs (default 90 deg for a hybrid, 180 deg for a balun)' },
+    measurements: {
+      t: 'array',
+      minItems: 1,
+      description: 'one entry per measured unit',
+      items: {
+        t: 'object',
+        description: 'a measured unit',
+        fields: {
+          unit: { ...text('the unit\'s serial number'), required: true },
+          file: { ...str('its Touchstone file, relative to this part file; never outside the content folder'), required: true },
+          conditions,
+          notes: str('a note on this measurement'),
+        },
+      },
+    },
+    bands: {
+      t: 'map',
+      keys: 'name',
+      description: 'named frequency bands',
+      value: {
+        t: 'object',
+        description: 'a band from one frequency to another',
+        fields: {
+          from: { t: 'quantity', kinds: ['frequency'], description: 'lower edge, with its unit', required: true },
+          to: { t: 'quantity', kinds: ['frequency'], description: 'upper edge, with its unit', required: true },
+        },
+      },
+    },
+    limits: { t: 'array', items: { t: 'object', fields: limitFields, description: 'a figure over a band and the limit it must meet' }, description: 'the limits the datasheet promises, in the order of its compliance table' },
+    report: { t: 'array', items: { t: 'object', fields: figureFields, description: 'a figure to report without a limit' }, description: 'figures reported without a limit (their worst follows the figure\'s bad direction)' },
+    'custom-figures': {
+      t: 'map',
+      keys: 'name',
+      description: 'figures of this part\'s own, as expressions over whole traces',
+      value: {
+        t: 'object',
+        description: 'a custom figure',
+        fields: {
+          expression: { ...str('e.g. db(S31) - db(S41); functions: db, loss_db, magnitude, phase_deg, unwrapped_phase_deg, group_delay, vswr, real_part, imag_part, and mathjs arithmetic'), required: true },
+          unit: { ...str('the unit of the result', { enum: ['dB', 'deg', 's', ''] }), required: true },
+          worse: { ...str('which way is worse when there is no limit', { enum: ['higher', 'lower'] }), required: true },
+          title: str('a human name for tables and plots'),
+        },
+      },
+    },
+    ratings: {
+      t: 'array',
+      description: 'absolute maximum ratings',
+      items: {
+        t: 'object',
+        description: 'one rating',
+        fields: { parameter: { ...str('e.g. RF input power, CW'), required: true }, value: { ...text('e.g. +30 dBm'), required: true }, notes: str('conditions of the rating') },
+      },
+    },
+    cautions: { t: 'array', items: str('a caution in plain words'), description: 'cautions for handling and use, printed with the class defaults' },
+  },
+};
+
+export { NAME_PATTERN };

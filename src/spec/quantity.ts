@@ -1,0 +1,66 @@
+/**
+ * Quantities as part files write them: "2.45 GHz", "1.2 dB", "4.78 ns",
+ * "90 deg", or a bare number for unitless values (VSWR, stability factors).
+ * Parsed to the base unit of their kind: Hz, dB, degrees, seconds.
+ */
+
+export type QuantityKind = 'frequency' | 'dB' | 'deg' | 'time' | 'unitless';
+
+interface UnitInfo {
+  readonly kind: QuantityKind;
+  readonly scale: number;
+}
+
+/** Unit spellings, matched case-sensitively except where the trade writes them either way. */
+const UNITS: Record<string, UnitInfo> = {
+  Hz: { kind: 'frequency', scale: 1 },
+  kHz: { kind: 'frequency', scale: 1e3 },
+  MHz: { kind: 'frequency', scale: 1e6 },
+  GHz: { kind: 'frequency', scale: 1e9 },
+  dB: { kind: 'dB', scale: 1 },
+  deg: { kind: 'deg', scale: 1 },
+  '°': { kind: 'deg', scale: 1 },
+  s: { kind: 'time', scale: 1 },
+  ms: { kind: 'time', scale: 1e-3 },
+  us: { kind: 'time', scale: 1e-6 },
+  'µs': { kind: 'time', scale: 1e-6 },
+  ns: { kind: 'time', scale: 1e-9 },
+  ps: { kind: 'time', scale: 1e-12 },
+};
+
+const CASE_FOLD: Record<string, string> = { hz: 'Hz', khz: 'kHz', mhz: 'MHz', ghz: 'GHz', db: 'dB', deg: 'deg' };
+
+export const KIND_NAMES: Record<QuantityKind, string> = {
+  frequency: 'a frequency (Hz, kHz, MHz, GHz)',
+  dB: 'a level in dB',
+  deg: 'an angle in deg',
+  time: 'a time (s, ms, us, ns, ps)',
+  unitless: 'a plain number (no unit)',
+};
+
+export const UNIT_OF_KIND: Record<QuantityKind, string> = { frequency: 'Hz', dB: 'dB', deg: 'deg', time: 's', unitless: '' };
+
+export type QuantityResult =
+  | { readonly ok: true; readonly value: number; readonly kind: QuantityKind; readonly unit: string }
+  | { readonly ok: false; readonly problem: 'not-a-quantity' | 'unknown-unit'; readonly message: string };
+
+const NUMBER = /^([+-−]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)\s*(.*)$/;
+
+/** Parses a number with an optional unit; a bare number is unitless. */
+export function parseQuantity(input: string | number): QuantityResult {
+  if (typeof input === 'number') {
+    return Number.isFinite(input) ? { ok: true, value: input, kind: 'unitless', unit: '' } : { ok: false, problem: 'not-a-quantity', message: `${input} is not a finite number` };
+  }
+  const text = input.trim();
+  const m = NUMBER.exec(text);
+  if (!m) return { ok: false, problem: 'not-a-quantity', message: `"${input}" is not a number with a unit (such as 2.45 GHz, 1.2 dB, 4.78 ns)` };
+  const value = Number(m[1].replace('−', '-'));
+  const unitText = m[2].trim();
+  if (unitText === '') return { ok: true, value, kind: 'unitless', unit: '' };
+  const unit = UNITS[unitText] ? unitText : CASE_FOLD[unitText.toLowerCase()];
+  const info = unit ? UNITS[unit] : undefined;
+  if (!info) {
+    return { ok: false, problem: 'unknown-unit', message: `unknown unit "${unitText}" in "${input}"; expected one of Hz, kHz, MHz, GHz, dB, deg, s, ms, us, ns, ps` };
+  }
+  return { ok: true, value: value * info.scale, kind: info.kind, unit };
+}
