@@ -50,3 +50,36 @@ export function maxAbsDiff(a: ArrayLike<number>, b: ArrayLike<number>): number {
   for (let i = 0; i < a.length; i++) m = Math.max(m, Math.abs(a[i] - b[i]));
   return m;
 }
+
+import { evaluatePart, type PartResult } from '../src/evaluate/evaluate.js';
+import { makeCompiler } from '../src/figures/expression.js';
+import { loadPartText } from '../src/spec/load.js';
+import type { SpecError } from '../src/spec/diagnostics.js';
+import { create, all } from 'mathjs';
+
+const compile = makeCompiler(create(all));
+
+/**
+ * Loads part YAML from a string and evaluates it against networks given by
+ * unit name (no files): the figure engine end to end without the shell.
+ */
+export function evaluateYaml(yaml: string, networks: Record<string, Network>): { result: PartResult | null; errors: readonly SpecError[] } {
+  const loaded = loadPartText(yaml, 'part.yaml', compile);
+  if (!loaded.value) return { result: null, errors: loaded.errors };
+  const units = loaded.value.measurements.map((m) => ({ unit: m.unit, file: m.file, network: networks[m.unit], conditions: m.conditions, fileAt: m.fileAt }));
+  const r = evaluatePart(loaded.value, units);
+  return { result: r.value, errors: r.errors };
+}
+
+/** Like evaluateYaml, but fails the test on errors. */
+export function resultsOf(yaml: string, networks: Record<string, Network>): PartResult {
+  const r = evaluateYaml(yaml, networks);
+  if (!r.result) throw new Error(`unexpected errors: ${JSON.stringify(r.errors, null, 1)}`);
+  return r.result;
+}
+
+/** A minimal part around the given limits, with one measurement per unit name. */
+export function partYaml(opts: { cls?: string; units: string[]; bands: string; limits: string; extra?: string; conditions?: Record<string, string> }): string {
+  const ms = opts.units.map((u) => `  - {unit: ${u}, file: ${u}.s4p${opts.conditions?.[u] ? `, conditions: {temperature: ${opts.conditions[u]}}` : ''}}`).join('\n');
+  return `part: T-1\nclass: ${opts.cls ?? 'generic'}\nrevision: A\nmeasurements:\n${ms}\nbands:\n${opts.bands}\nlimits:\n${opts.limits}\n${opts.extra ?? ''}`;
+}

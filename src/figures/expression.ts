@@ -60,7 +60,9 @@ export function makeCompiler(math: MathJsInstance): ExpressionCompiler {
     const uses: SParameter[] = [];
     const slots: Array<{ fn: TraceFn; p: SParameter }> = [];
     let problem: string | null = null;
-    const transformed = tree.transform((node: MathNode) => {
+    // Bottom-up rebuild: trace calls become symbols bound to whole traces, and * / ^ become their
+    // element-wise forms at every depth (mathjs's own transform() stops at a replaced node).
+    const rebuild = (node: MathNode): MathNode => {
       if (problem) return node;
       if (node.type === 'FunctionNode') {
         const fnNode = node as unknown as { fn: { name: string }; args: MathNode[] };
@@ -79,16 +81,18 @@ export function makeCompiler(math: MathJsInstance): ExpressionCompiler {
         }
         if (NOT_ARITHMETIC.has(name) || typeof (math as unknown as Record<string, unknown>)[name] !== 'function') {
           problem = `unknown function ${name}(); trace functions are ${Object.keys(TRACE_FUNCTIONS).join(', ')}, and around them mathjs functions such as abs, sqrt, log10, max, min`;
+          return node;
         }
-        return node;
       }
-      if (node.type === 'OperatorNode') {
-        const op = node as unknown as { fn: string; args: MathNode[] };
+      const mapped = node.map((child: MathNode) => rebuild(child));
+      if (mapped.type === 'OperatorNode') {
+        const op = mapped as unknown as { fn: string; args: MathNode[] };
         const el = ELEMENTWISE[op.fn];
         if (el) return new math.FunctionNode(new math.SymbolNode(el), op.args);
       }
-      return node;
-    });
+      return mapped;
+    };
+    const transformed = rebuild(tree);
     if (problem) return { ok: false, message: problem };
     const symbols: string[] = [];
     transformed.traverse((node: MathNode, _path: string, parent: MathNode | null) => {

@@ -11,8 +11,21 @@ export function editDistance(a: string, b: string): number {
   return d[a.length][b.length];
 }
 
-/** The candidate closest to `word`, if it is close enough to be a likely typo. */
+/**
+ * The candidate closest to `word`, if it is close enough to be a likely typo
+ * (a small edit distance), or a shortening or lengthening of it ("maximum" → "max").
+ */
 export function nearest(word: string, candidates: Iterable<string>): string | null {
+  const list = [...candidates];
+  const w = word.toLowerCase();
+  if (w.length >= 3) {
+    const related = list.filter((c) => c.length >= 3 && (w.startsWith(c.toLowerCase()) || c.toLowerCase().startsWith(w)));
+    if (related.length === 1) return related[0];
+  }
+  return nearestByEdits(word, list);
+}
+
+function nearestByEdits(word: string, candidates: readonly string[]): string | null {
   let best: string | null = null;
   let bestD = Infinity;
   for (const c of candidates) {

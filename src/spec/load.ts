@@ -28,7 +28,7 @@ export function loadPartText(text: string, file: string, compile?: ExpressionCom
     return {
       value: null,
       errors: doc.errors.map((e) => {
-        const p = e.linePos?.[0] ?? { line: 0, col: 0 };
+        const p = e.linePos?.[0] ?? lines.linePos(e.pos[0]);
         const message = e.code === 'DUPLICATE_KEY' ? 'a key is given twice in the same mapping; give each key once' : `YAML syntax: ${e.message.split(' at line')[0]}`;
         return { code: 'yaml-syntax' as const, file, message, line: p.line, column: p.col };
       }),

@@ -107,16 +107,20 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
 
   // bands
   const bands = new Map<string, NormalizedBand>();
+  /** Bands that are named but broken: their errors are reported once, not again at every use. */
+  const brokenBands = new Set<string>();
   if (isObj(spec.bands)) {
+    for (const name of Object.keys(spec.bands)) brokenBands.add(name);
     for (const [name, b] of Object.entries(spec.bands)) {
       if (!isObj(b) || b.from === undefined || b.to === undefined) continue;
       const from = parseQuantity(b.from as string), to = parseQuantity(b.to as string);
       if (!from.ok || !to.ok) continue;
-      if (!(to.value > from.value)) {
-        err('bad-value', `bands.${name}.to`, `band ${name} must end above where it starts (${b.from} to ${b.to})`);
+      if (to.value < from.value) {
+        err('bad-value', `bands.${name}.to`, `band ${name} ends below where it starts (${b.from} to ${b.to}); from ≤ to (equal for a single frequency)`);
         continue;
       }
       bands.set(name, { name, fromHz: from.value, toHz: to.value, at: at(`bands.${name}`) });
+      brokenBands.delete(name);
     }
   }
 
@@ -143,6 +147,7 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
 
   // custom figures
   const custom = new Map<string, FigureDef>();
+  const brokenCustom = new Set<string>();
   if (isObj(spec['custom-figures'])) {
     for (const [name, c] of Object.entries(spec['custom-figures'])) {
       if (!isObj(c) || typeof c.expression !== 'string' || typeof c.unit !== 'string' || typeof c.worse !== 'string') continue;
@@ -154,6 +159,7 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
       const compiled = input.compile(c.expression);
       if (!compiled.ok) {
         err('bad-expression', `custom-figures.${name}.expression`, compiled.message);
+        brokenCustom.add(name);
         continue;
       }
       custom.set(name, customFigure(name, c, compiled.value));
@@ -176,6 +182,7 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
     const before = errors.length;
     const figureName = typeof e.figure === 'string' ? e.figure : '';
     const figure = FIGURES.get(figureName) ?? custom.get(figureName);
+    if (!figure && brokenCustom.has(figureName)) return null; // its expression's error is reported already
     if (!figure) {
       const near = nearest(figureName, [...FIGURES.keys(), ...custom.keys()]);
       err('unknown-figure', `${path}.figure`, `unknown figure "${figureName}"${near ? `; did you mean "${near}"?` : `; expected one of ${[...FIGURES.keys()].join(', ')}${custom.size ? ` or a custom figure (${[...custom.keys()].join(', ')})` : ''}`}`);
@@ -183,7 +190,7 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
     }
     const bandName = typeof e.band === 'string' ? e.band : '';
     const band = bands.get(bandName);
-    if (!band && typeof e.band === 'string') {
+    if (!band && typeof e.band === 'string' && !brokenBands.has(bandName)) {
       const near = nearest(bandName, bands.keys());
       err('unknown-band', `${path}.band`, `band "${bandName}" is not defined${near ? `; did you mean "${near}"?` : bands.size ? `; the bands are ${[...bands.keys()].join(', ')}` : '; define it under bands:'}`);
     }

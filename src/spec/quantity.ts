@@ -8,24 +8,25 @@ export type QuantityKind = 'frequency' | 'dB' | 'deg' | 'time' | 'unitless';
 
 interface UnitInfo {
   readonly kind: QuantityKind;
-  readonly scale: number;
+  /** The unit is 10^exp of the base unit. */
+  readonly exp: number;
 }
 
 /** Unit spellings, matched case-sensitively except where the trade writes them either way. */
 const UNITS: Record<string, UnitInfo> = {
-  Hz: { kind: 'frequency', scale: 1 },
-  kHz: { kind: 'frequency', scale: 1e3 },
-  MHz: { kind: 'frequency', scale: 1e6 },
-  GHz: { kind: 'frequency', scale: 1e9 },
-  dB: { kind: 'dB', scale: 1 },
-  deg: { kind: 'deg', scale: 1 },
-  '°': { kind: 'deg', scale: 1 },
-  s: { kind: 'time', scale: 1 },
-  ms: { kind: 'time', scale: 1e-3 },
-  us: { kind: 'time', scale: 1e-6 },
-  'µs': { kind: 'time', scale: 1e-6 },
-  ns: { kind: 'time', scale: 1e-9 },
-  ps: { kind: 'time', scale: 1e-12 },
+  Hz: { kind: 'frequency', exp: 0 },
+  kHz: { kind: 'frequency', exp: 3 },
+  MHz: { kind: 'frequency', exp: 6 },
+  GHz: { kind: 'frequency', exp: 9 },
+  dB: { kind: 'dB', exp: 0 },
+  deg: { kind: 'deg', exp: 0 },
+  '°': { kind: 'deg', exp: 0 },
+  s: { kind: 'time', exp: 0 },
+  ms: { kind: 'time', exp: -3 },
+  us: { kind: 'time', exp: -6 },
+  'µs': { kind: 'time', exp: -6 },
+  ns: { kind: 'time', exp: -9 },
+  ps: { kind: 'time', exp: -12 },
 };
 
 const CASE_FOLD: Record<string, string> = { hz: 'Hz', khz: 'kHz', mhz: 'MHz', ghz: 'GHz', db: 'dB', deg: 'deg' };
@@ -44,7 +45,7 @@ export type QuantityResult =
   | { readonly ok: true; readonly value: number; readonly kind: QuantityKind; readonly unit: string }
   | { readonly ok: false; readonly problem: 'not-a-quantity' | 'unknown-unit'; readonly message: string };
 
-const NUMBER = /^([+-−]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)\s*(.*)$/;
+const NUMBER = /^([+-−]?(?:\d+\.?\d*|\.\d+))(?:[eE]([+-]?\d+))?\s*(.*)$/;
 
 /** Parses a number with an optional unit; a bare number is unitless. */
 export function parseQuantity(input: string | number): QuantityResult {
@@ -54,13 +55,15 @@ export function parseQuantity(input: string | number): QuantityResult {
   const text = input.trim();
   const m = NUMBER.exec(text);
   if (!m) return { ok: false, problem: 'not-a-quantity', message: `"${input}" is not a number with a unit (such as 2.45 GHz, 1.2 dB, 4.78 ns)` };
-  const value = Number(m[1].replace('−', '-'));
-  const unitText = m[2].trim();
-  if (unitText === '') return { ok: true, value, kind: 'unitless', unit: '' };
+  const mantissa = m[1].replace('−', '-');
+  const exponent = Number(m[2] ?? 0);
+  const unitText = m[3].trim();
+  if (unitText === '') return { ok: true, value: Number(`${mantissa}e${exponent}`), kind: 'unitless', unit: '' };
   const unit = UNITS[unitText] ? unitText : CASE_FOLD[unitText.toLowerCase()];
   const info = unit ? UNITS[unit] : undefined;
   if (!info) {
     return { ok: false, problem: 'unknown-unit', message: `unknown unit "${unitText}" in "${input}"; expected one of Hz, kHz, MHz, GHz, dB, deg, s, ms, us, ns, ps` };
   }
-  return { ok: true, value: value * info.scale, kind: info.kind, unit };
+  // the unit's power of ten joins the exponent, so "4.78 ns" is exactly the double nearest 4.78e-9
+  return { ok: true, value: Number(`${mantissa}e${exponent + info.exp}`), kind: info.kind, unit };
 }

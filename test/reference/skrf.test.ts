@@ -24,6 +24,7 @@ import { db, groupDelay, phaseDeg, phaseUnwrappedDeg, vswr } from '../../src/net
 import { sToAbcd } from '../../src/network/twoport.js';
 import { writeTouchstone } from '../../src/touchstone/write.js';
 import type { TouchstoneData } from '../../src/touchstone/normalize.js';
+import { resultsOf } from '../helpers.js';
 
 const PYTHON = '/usr/bin/python3';
 const SKRF_DIR = '/usr/lib/python3/dist-packages/skrf';
@@ -288,4 +289,28 @@ describe.skipIf(!available)(`against scikit-rf (${PYTHON})`, () => {
     expect(commentRefs).toBeLessThan(files / 2); // most files are compared in full
     expect(values).toBeGreaterThan(100_000);
   });
+
+  it('figures over a band equal the extremes of scikit-rf\'s own traces (insertion loss, return loss, VSWR, group delay, gain)', () => {
+    for (const rel of ['tests/ntwk1.s2p', 'tests/hfss_twoport.s2p', 'data/ring slot.s2p']) {
+      const file = join(SKRF_DIR, rel);
+      const ref = refs.get(file) as Ref;
+      const net = (readTouchstoneFile(file).value as TouchstoneData).network;
+      const k = net.freqHz.length;
+      const lo = Math.floor(k / 5), hi = Math.floor((3 * k) / 4); // band edges on measured points: no interpolation
+      const fmt = (hz: number) => `${hz} Hz`;
+      const yaml = `part: R\nclass: generic\nmeasurements:\n  - {unit: U, file: u.s2p}\nbands:\n  b: {from: ${fmt(net.freqHz[lo])}, to: ${fmt(net.freqHz[hi])}}\nlimits:\n` +
+        '  - {figure: insertion-loss, on: S21, band: b, max: 100 dB}\n  - {figure: return-loss, on: S11, band: b, min: 0 dB}\n  - {figure: vswr, on: S22, band: b, max: 1000}\n' +
+        '  - {figure: group-delay, on: S21, band: b, max: 1 s}\n  - {figure: gain, on: S21, band: b, min: -100 dB}\n';
+      const r = resultsOf(yaml, { U: net }).results;
+      const at = (arr: (number | null)[], i: number, j: number) => Array.from({ length: hi - lo + 1 }, (_, q) => arr[((lo + q) * 2 + i) * 2 + j] as number);
+      const s21db = at(ref.s_db, 1, 0), s11db = at(ref.s_db, 0, 0), vswr22 = at(ref.vswr, 1, 1), gd21 = at(ref.group_delay as number[], 1, 0);
+      const near = (a: number, b: number, tol: number, what: string) => expect(Math.abs(a - b), `${rel} ${what}: ${a} vs ${b}`).toBeLessThanOrEqual(tol * Math.max(1, Math.abs(b)));
+      near(r[0].worst, Math.max(...s21db.map((v) => -v)), TOL, 'worst insertion loss');
+      near(r[1].worst, Math.min(...s11db.map((v) => -v)), TOL, 'worst return loss');
+      near(r[2].worst, Math.max(...vswr22), TOL, 'worst VSWR');
+      near(r[3].worst, Math.max(...gd21), TOL * 1e-9, 'largest group delay');
+      near(r[4].worst, Math.min(...s21db), TOL, 'lowest gain');
+    }
+  });
 });
+

@@ -1,0 +1,48 @@
+/**
+ * One source for the schema: the published JSON Schema is generated from the
+ * validator's own definition, the committed copy is current, and every part
+ * file in the demo catalog passes an independent JSON Schema validator (Ajv,
+ * draft 2020-12) as well as our own.
+ */
+import { readdirSync, readFileSync, existsSync } from 'node:fs';
+import { join } from 'node:path';
+import { Ajv2020 } from 'ajv/dist/2020.js';
+import { parse } from 'yaml';
+import { describe, expect, it } from 'vitest';
+import { partJsonSchema, partJsonSchemaText } from '../../src/spec/json-schema.js';
+import { loadPartText } from '../../src/spec/load.js';
+
+const CONTENT = join(import.meta.dirname, '../../content');
+const parts = readdirSync(join(CONTENT, 'parts')).map((d) => join(CONTENT, 'parts', d, 'part.yaml')).filter(existsSync);
+
+describe('the part file schema', () => {
+  const ajv = new Ajv2020({ allErrors: true, strict: false });
+  const check = ajv.compile(partJsonSchema());
+
+  it('content/part.schema.json is the generated schema (npm run schema)', () => {
+    expect(readFileSync(join(CONTENT, 'part.schema.json'), 'utf8')).toBe(partJsonSchemaText());
+  });
+
+  it('every demo part file passes Ajv and our validator', () => {
+    expect(parts.length).toBeGreaterThan(0);
+    for (const p of parts) {
+      const text = readFileSync(p, 'utf8');
+      expect(check(parse(text, { version: '1.2' })), `${p}: ${JSON.stringify(check.errors)}`).toBe(true);
+      expect(loadPartText(text, p, () => ({ ok: false, message: 'not compiled here' })).errors.filter((e) => e.code !== 'bad-expression')).toEqual([]);
+    }
+  });
+
+  it('Ajv and our validator agree on broken files: unknown keys, bad classes, bare frequencies, missing keys', () => {
+    const base = readFileSync(parts[0], 'utf8');
+    const broken = [
+      base.replace(/^limits:/m, 'limts:'),
+      base.replace(/^class: \w+/m, 'class: filtre'),
+      base.replace(/from: ([\d.]+) GHz/, 'from: $1'),
+      base.replace(/^part: .*$/m, ''),
+    ];
+    for (const text of broken) {
+      expect(check(parse(text, { version: '1.2' }))).toBe(false);
+      expect(loadPartText(text, 'x.yaml').errors.length).toBeGreaterThan(0);
+    }
+  });
+});
