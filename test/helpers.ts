@@ -66,7 +66,7 @@ const compile = makeCompiler(create(all));
 export function evaluateYaml(yaml: string, networks: Record<string, Network>): { result: PartResult | null; errors: readonly SpecError[] } {
   const loaded = loadPartText(yaml, 'part.yaml', compile);
   if (!loaded.value) return { result: null, errors: loaded.errors };
-  const units = loaded.value.measurements.map((m) => ({ unit: m.unit, file: m.file, network: networks[m.unit], conditions: m.conditions, fileAt: m.fileAt }));
+  const units = loaded.value.measurements.map((m) => ({ unit: m.label, file: m.file, network: networks[m.unit], conditions: m.conditions, fileAt: m.fileAt }));
   const r = evaluatePart(loaded.value, units);
   return { result: r.value, errors: r.errors };
 }

@@ -13,6 +13,7 @@ import type { NormalizedPart } from '../spec/normalize.js';
 import type { TouchstoneData } from '../touchstone/normalize.js';
 
 export interface LoadedUnit extends UnitData {
+  readonly serial: string;
   readonly data: TouchstoneData;
   readonly path: string;
   readonly bytes: number;
@@ -85,7 +86,7 @@ export async function evaluatePartFile(partFile: string, contentRoot: string, di
       for (const e of r.errors) errors.push({ code: 'touchstone', file: fileLabel, line: e.line, column: e.column ?? (e.line ? 1 : 0), message: e.message });
       continue;
     }
-    units.push({ unit: m.unit, file: m.file, network: r.value.network, conditions: m.conditions, fileAt: m.fileAt, data: r.value, path, bytes: r.bytes });
+    units.push({ unit: m.label, serial: m.unit, file: m.file, network: r.value.network, conditions: m.conditions, fileAt: m.fileAt, data: r.value, path, bytes: r.bytes });
   }
   if (errors.length) return { source, part, units, result: null, errors };
   const evaluated = evaluatePart(part, units);

@@ -22,7 +22,10 @@ export interface NormalizedBand {
 }
 
 export interface NormalizedMeasurement {
+  /** The serial number as written. */
   readonly unit: string;
+  /** How results name this measurement: the serial, or serial @ conditions where the serial repeats. */
+  readonly label: string;
   /** As written in the part file, relative to it. */
   readonly file: string;
   readonly conditions: Readonly<Record<string, string>>;
@@ -130,19 +133,27 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
   const phaseSplitDeg = split && split.ok ? split.value : null;
   const partCtx = { partClass, ways, phaseSplitDeg };
 
-  // measurements
+  // measurements: a serial may appear several times under different conditions (temperature corners)
   const measurements: NormalizedMeasurement[] = [];
-  const seenUnits = new Map<string, number>();
+  const seen = new Map<string, number>();
   if (Array.isArray(spec.measurements)) {
     spec.measurements.forEach((m, i) => {
       if (!isObj(m) || str(m.unit) === null || typeof m.file !== 'string') return;
       const unit = str(m.unit) as string;
-      if (seenUnits.has(unit)) err('duplicate', `measurements.${i}.unit`, `unit ${unit} is listed twice (entries ${(seenUnits.get(unit) as number) + 1} and ${i + 1}); each measured unit once`);
-      seenUnits.set(unit, i);
       const conditions: Record<string, string> = {};
       if (isObj(m.conditions)) for (const [k, v] of Object.entries(m.conditions)) conditions[k] = conditionText(v);
-      measurements.push({ unit, file: m.file, conditions, notes: str(m.notes), at: at(`measurements.${i}`), fileAt: at(`measurements.${i}.file`) });
+      const key = `${unit}\u0000${JSON.stringify(Object.entries(conditions).sort())}`;
+      if (seen.has(key)) err('duplicate', `measurements.${i}.unit`, `unit ${unit} is listed twice under the same conditions (entries ${(seen.get(key) as number) + 1} and ${i + 1}); list each measurement once`);
+      seen.set(key, i);
+      measurements.push({ unit, label: unit, file: m.file, conditions, notes: str(m.notes), at: at(`measurements.${i}`), fileAt: at(`measurements.${i}.file`) });
     });
+  }
+  // where a serial repeats, results name the measurement by serial and conditions: "SN3001 @ 85 °C"
+  const count = new Map<string, number>();
+  for (const m of measurements) count.set(m.unit, (count.get(m.unit) ?? 0) + 1);
+  for (const [i, m] of measurements.entries()) {
+    const conds = Object.values(m.conditions);
+    if ((count.get(m.unit) ?? 0) > 1 && conds.length) measurements[i] = { ...m, label: `${m.unit} @ ${conds.join(', ')}` };
   }
 
   // custom figures

@@ -5,7 +5,7 @@
  * resonators (Pozar §8.4), each inductor and capacitor carrying the loss of
  * its Q and a seeded tolerance.
  */
-import { c, div, ONE, add, type C } from '../../network/complex.js';
+import { div, ONE, add, type C } from '../../network/complex.js';
 import type { Network } from '../../network/network.js';
 import type { Random } from '../random.js';
 import { capacitorY, chainToNetwork, inductorZ, series, shunt, type Element } from '../circuit.js';
@@ -56,6 +56,5 @@ export function bandpass(design: BandpassDesign, freqHz: Float64Array, rnd: Rand
       elements.push(series((w): C => add(zl(w), div(ONE, yc(w)))));
     }
   }
-  void c;
   return chainToNetwork(elements, freqHz, z0);
 }
