@@ -4,6 +4,7 @@
  */
 import { dirname, resolve } from 'node:path';
 import type { CheckResult, PartResult } from '../evaluate/evaluate.js';
+import { figuresJson } from '../evaluate/json.js';
 import { formatFrequency } from '../format/units.js';
 import { formatLimit, formatValue } from '../format/values.js';
 import { evaluatePartFile } from '../pipeline/part.js';
@@ -16,32 +17,6 @@ const FLAGS: FlagSpec[] = [
   { name: 'json', help: 'print the results as JSON on stdout' },
   { name: 'strict', help: 'exit 3 when a limit fails' },
 ];
-
-/** The JSON of `figures --json`: exactly the documented keys. */
-export function figuresJson(r: PartResult): object {
-  return {
-    part: r.part,
-    revision: r.revision,
-    pass: r.pass,
-    results: r.results.map((c) => ({
-      figure: c.figure,
-      on: c.on,
-      band: c.band,
-      fromHz: c.fromHz,
-      toHz: c.toHz,
-      unit: c.unit,
-      limit: c.limit,
-      worst: c.worst,
-      worstAtHz: c.worstAtHz,
-      worstUnit: c.worstUnit,
-      worstOn: c.worstOn,
-      typical: c.typical,
-      margin: c.margin,
-      pass: c.pass,
-      units: c.units.map((u) => ({ unit: u.unit, worst: u.worst, atHz: u.atHz, margin: u.margin, pass: u.pass })),
-    })),
-  };
-}
 
 function verdict(c: CheckResult, p: Painter): string {
   if (c.pass === null) return 'report';

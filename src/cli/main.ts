@@ -1,12 +1,13 @@
 /** The scatterbook command line: dispatch, usage, exit codes. */
 import { nearest, UsageError } from './args.js';
 import { EXIT, type Command, type ExitCode } from './command.js';
+import { buildCommand } from './build-command.js';
 import { figuresCommand } from './figures-command.js';
 import { readCommand } from './read-command.js';
 import { schemaCommand } from './schema-command.js';
 import type { Terminal } from './terminal.js';
 
-export const COMMANDS: readonly Command[] = [readCommand, figuresCommand, schemaCommand];
+export const COMMANDS: readonly Command[] = [buildCommand, readCommand, figuresCommand, schemaCommand];
 
 export function usage(): string {
   const lines = ['scatterbook: checked RF component datasheets from Touchstone measurements', '', 'commands:'];

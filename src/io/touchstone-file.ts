@@ -2,6 +2,7 @@
  * Reading a Touchstone file from disk: streamed through the parser in fixed
  * chunks, so memory holds the numbers and one chunk, not the whole text.
  */
+import { createHash } from 'node:crypto';
 import { closeSync, fstatSync, openSync, readSync } from 'node:fs';
 import { basename } from 'node:path';
 import { TouchstoneParser } from '../touchstone/parse.js';
@@ -11,6 +12,8 @@ const CHUNK = 1 << 20;
 
 export interface FileReadResult extends ReadResult {
   readonly bytes: number;
+  /** SHA-256 of the file's bytes, hex (for provenance records). */
+  readonly sha256: string;
 }
 
 export interface FileReadOptions {
@@ -29,24 +32,26 @@ export function readTouchstoneFile(path: string, options: FileReadOptions = {}):
   } catch (e) {
     const err = e as NodeJS.ErrnoException;
     const what = err.code === 'ENOENT' ? 'no such file' : err.code === 'EISDIR' ? 'is a folder, not a file' : err.code === 'EACCES' ? 'permission denied' : err.message;
-    return { value: null, errors: [{ code: 'not-text', line: 0, message: `cannot read the file: ${what}` }], warnings: [], bytes: 0 };
+    return { value: null, errors: [{ code: 'not-text', line: 0, message: `cannot read the file: ${what}` }], warnings: [], bytes: 0, sha256: '' };
   }
   try {
     const size = fstatSync(fd).size;
     const parser = new TouchstoneParser({ fileName: basename(path), sizeHint: size, ports });
     const chunk = new Uint8Array(Math.min(CHUNK, Math.max(size, 1)));
+    const hash = createHash('sha256');
     let total = 0;
     for (;;) {
       const got = readSync(fd, chunk, 0, chunk.length, null);
       if (got === 0) break;
       total += got;
+      hash.update(chunk.subarray(0, got));
       parser.push(chunk.subarray(0, got));
       onProgress?.(total, size);
     }
-    return { ...fromParsed(parser.finish()), bytes: total };
+    return { ...fromParsed(parser.finish()), bytes: total, sha256: hash.digest('hex') };
   } catch (e) {
     const err = e as NodeJS.ErrnoException;
-    return { value: null, errors: [{ code: 'not-text', line: 0, message: `cannot read the file: ${err.code === 'EISDIR' ? 'is a folder, not a file' : err.message}` }], warnings: [], bytes: 0 };
+    return { value: null, errors: [{ code: 'not-text', line: 0, message: `cannot read the file: ${err.code === 'EISDIR' ? 'is a folder, not a file' : err.message}` }], warnings: [], bytes: 0, sha256: '' };
   } finally {
     closeSync(fd);
   }

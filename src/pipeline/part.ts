@@ -17,6 +17,7 @@ export interface LoadedUnit extends UnitData {
   readonly data: TouchstoneData;
   readonly path: string;
   readonly bytes: number;
+  readonly sha256: string;
 }
 
 export interface PartOutcome {
@@ -86,7 +87,7 @@ export async function evaluatePartFile(partFile: string, contentRoot: string, di
       for (const e of r.errors) errors.push({ code: 'touchstone', file: fileLabel, line: e.line, column: e.column ?? (e.line ? 1 : 0), message: e.message });
       continue;
     }
-    units.push({ unit: m.label, serial: m.unit, file: m.file, network: r.value.network, conditions: m.conditions, fileAt: m.fileAt, data: r.value, path, bytes: r.bytes });
+    units.push({ unit: m.label, serial: m.unit, file: m.file, network: r.value.network, conditions: m.conditions, fileAt: m.fileAt, data: r.value, path, bytes: r.bytes, sha256: r.sha256 });
   }
   if (errors.length) return { source, part, units, result: null, errors };
   const evaluated = evaluatePart(part, units);

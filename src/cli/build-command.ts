@@ -1,0 +1,95 @@
+/**
+ * `scatterbook build [CONTENT_DIR] [--out DIR] [--no-pdf] [--keep-going]`:
+ * a content folder → a static datasheet site. Nothing partial is published:
+ * the site is built in a staging folder and swapped in only when every part
+ * built (or, with --keep-going, with the good parts and a list of the others).
+ */
+import { readFileSync } from 'node:fs';
+import { join, relative, resolve } from 'node:path';
+import { discard, stagingFolder, swapInto } from '../io/swap.js';
+import { buildCatalog } from '../pipeline/build-catalog.js';
+import { writeSite } from '../site/eleventy-run.js';
+import { PACKAGE_ROOT } from '../site/plugin.js';
+import { parseArgs, UsageError, type FlagSpec } from './args.js';
+import { EXIT, type Command } from './command.js';
+import { progress } from './progress.js';
+import { painter, type Terminal } from './terminal.js';
+
+export const BUILD_FLAGS: FlagSpec[] = [
+  { name: 'out', value: true, help: 'the output folder (default _site)' },
+  { name: 'keep-going', help: 'publish the parts that build, and list the ones that do not' },
+  { name: 'no-pdf', help: 'do not print PDF datasheets' },
+  { name: 'no-cache', help: 'recompute every part (by default unchanged parts come from the cache)' },
+  { name: 'cache', value: true, help: 'the cache folder (default .scatterbook-cache beside the output)' },
+];
+
+export function packageVersion(): string {
+  return (JSON.parse(readFileSync(join(PACKAGE_ROOT, 'package.json'), 'utf8')) as { version: string }).version;
+}
+
+export interface BuildOptions {
+  readonly content: string;
+  readonly out: string;
+  readonly keepGoing: boolean;
+  readonly cacheDir: string | null;
+}
+
+export function buildOptions(argv: readonly string[], t: Terminal, flags: readonly FlagSpec[] = BUILD_FLAGS): BuildOptions & { flags: Map<string, string | true> } {
+  const args = parseArgs(argv, flags);
+  if (args.positionals.length > 1) throw new UsageError('build takes at most one content folder');
+  const content = resolve(t.cwd, args.positionals[0] ?? 'content');
+  const out = resolve(t.cwd, (args.flags.get('out') as string | undefined) ?? '_site');
+  const cacheFlag = args.flags.get('cache');
+  const cacheDir = args.flags.has('no-cache') ? null : resolve(t.cwd, typeof cacheFlag === 'string' ? cacheFlag : join(out, '..', '.scatterbook-cache'));
+  return { content, out, keepGoing: args.flags.has('keep-going'), cacheDir, flags: args.flags };
+}
+
+export async function runBuild(o: BuildOptions, t: Terminal): Promise<{ code: 0 | 1; parts: number; failed: number; ms: number }> {
+  const p = painter(t.stderr, t.env);
+  const bar = progress(t);
+  const started = performance.now();
+  const rel = (x: string) => relative(t.cwd, x) || '.';
+  const built = await buildCatalog(o.content, {
+    version: packageVersion(),
+    cacheDir: o.cacheDir,
+    onPart: (done, total, slug) => bar.update(`parts ${done}/${total}  ${slug}`),
+  });
+  bar.done();
+  const { catalog } = built;
+  const problems = [...built.settingsErrors, ...catalog.failures.flatMap((f) => f.messages)];
+  for (const m of problems) t.stderr.write(`${m}\n`);
+  if (built.settingsErrors.length || (catalog.failures.length && !o.keepGoing) || catalog.parts.length === 0) {
+    const why = catalog.parts.length === 0 && !catalog.failures.length ? `no parts found: expected ${rel(join(o.content, 'parts'))}/<slug>/part.yaml` : `${catalog.failures.length + (built.settingsErrors.length ? 1 : 0)} file${catalog.failures.length === 1 ? '' : 's'} with errors`;
+    t.stderr.write(`${p.red('error:')} ${why}; nothing was written (${rel(o.out)} is unchanged)${catalog.failures.length && !o.keepGoing ? '; --keep-going publishes the parts that build' : ''}\n`);
+    return { code: 1, parts: catalog.parts.length, failed: catalog.failures.length, ms: performance.now() - started };
+  }
+  bar.update(`pages for ${catalog.parts.length} parts`);
+  const staging = stagingFolder(o.out);
+  try {
+    await writeSite(o.content, catalog, staging);
+    swapInto(staging, o.out);
+  } catch (e) {
+    discard(staging);
+    throw e;
+  } finally {
+    bar.done();
+  }
+  const ms = performance.now() - started;
+  const failed = catalog.failures.length;
+  t.stdout.write(
+    `built ${catalog.parts.length} part${catalog.parts.length === 1 ? '' : 's'}${failed ? `, ${failed} left out with errors` : ''}${built.cacheHits ? ` (${built.cacheHits} unchanged, from the cache)` : ''} into ${rel(o.out)}/ in ${(ms / 1000).toFixed(1)} s; open ${rel(join(o.out, 'index.html'))}\n`,
+  );
+  return { code: failed ? 1 : 0, parts: catalog.parts.length, failed, ms };
+}
+
+export const buildCommand: Command = {
+  name: 'build',
+  summary: 'build the datasheet site of a content folder (default content/) into _site/',
+  usage: 'scatterbook build [CONTENT_DIR] [--out DIR] [--keep-going] [--no-pdf] [--no-cache] [--cache DIR]',
+  flags: BUILD_FLAGS,
+  async run(argv, t) {
+    const o = buildOptions(argv, t);
+    const r = await runBuild(o, t);
+    return r.code === 0 ? EXIT.ok : EXIT.badInput;
+  },
+};

@@ -1,0 +1,297 @@
+/**
+ * A content folder → one serializable catalog model: every part's figures,
+ * plots (as SVG), measurement provenance and data quality, formatted for the
+ * templates, which only place it. Eleventy receives this as global data.
+ */
+import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
+import { join, relative } from 'node:path';
+import type { CheckResult } from '../evaluate/evaluate.js';
+import { figuresJson } from '../evaluate/json.js';
+import { formatFrequency, trimNumber } from '../format/units.js';
+import { formatLimit, formatValue } from '../format/values.js';
+import { ieee370Quality } from '../network/ieee370.js';
+import { passivity, reciprocity } from '../network/quality.js';
+import { CLASS_HEADLINE } from '../plots/defaults.js';
+import { buildPlots } from '../plots/model.js';
+import { renderPlot } from '../plots/render.js';
+import { DASHES, PALETTE } from '../plots/spec.js';
+import { formatSpecError, type SpecError } from '../spec/diagnostics.js';
+import type { NormalizedPart } from '../spec/normalize.js';
+import { cautionsFor } from '../site/cautions.js';
+import { renderMarkdown } from '../site/markdown.js';
+import { loadSettings, type SiteSettings } from '../site/settings.js';
+import { evaluatePartFile, type LoadedUnit } from './part.js';
+
+export interface Cell {
+  readonly text: string;
+  /** The exact number behind the text (null where there is none). */
+  readonly value: number | null;
+}
+
+export interface ComplianceRow {
+  readonly label: string;
+  readonly figure: string;
+  readonly on: string;
+  readonly band: string;
+  readonly bandRange: string;
+  readonly limit: string;
+  readonly typical: Cell;
+  readonly worst: Cell;
+  readonly worstUnit: string;
+  readonly at: Cell;
+  readonly margin: Cell;
+  readonly verdict: 'PASS' | 'FAIL' | 'REPORT';
+  readonly units: ReadonlyArray<{ readonly unit: string; readonly worst: Cell; readonly at: Cell; readonly margin: Cell; readonly verdict: 'PASS' | 'FAIL' | 'REPORT' }>;
+}
+
+export interface HeadlineRow {
+  readonly label: string;
+  readonly on: string;
+  readonly bandRange: string;
+  readonly typical: string;
+  readonly guaranteed: string;
+}
+
+export interface PlotBlock {
+  readonly id: string;
+  readonly title: string;
+  readonly svg: string;
+  readonly legend: ReadonlyArray<{ readonly label: string; readonly color: string; readonly dash: string }>;
+  readonly unitCount: number;
+  readonly hasLimits: boolean;
+}
+
+export interface MeasurementRow {
+  readonly unit: string;
+  readonly conditions: string;
+  readonly file: string;
+  readonly sha256: string;
+  readonly points: number;
+  readonly range: string;
+  readonly reference: string;
+  readonly touchstone: string;
+  readonly notes: string;
+}
+
+export interface QualityRow {
+  readonly unit: string;
+  readonly passivity: string;
+  readonly reciprocity: string;
+  readonly ieee370: string;
+  /** A warning for the reader, or null when the data look as the class expects. */
+  readonly flag: string | null;
+}
+
+export interface PartPage {
+  readonly slug: string;
+  readonly url: string;
+  readonly pdfUrl: string | null;
+  readonly part: string;
+  readonly title: string;
+  readonly partClass: string;
+  readonly revision: string;
+  readonly date: string;
+  readonly vendor: string;
+  readonly description: string;
+  readonly notesHtml: string;
+  readonly packageText: string;
+  readonly connector: string;
+  readonly operatingTemperature: string;
+  readonly ports: ReadonlyArray<{ readonly number: number; readonly name: string }>;
+  readonly pass: boolean;
+  readonly frequencyRange: string;
+  readonly headline: readonly HeadlineRow[];
+  readonly compliance: readonly ComplianceRow[];
+  readonly plots: readonly PlotBlock[];
+  readonly measurements: readonly MeasurementRow[];
+  readonly quality: readonly QualityRow[];
+  readonly ratings: ReadonlyArray<{ readonly parameter: string; readonly value: string; readonly notes: string }>;
+  readonly cautions: readonly string[];
+  /** The JSON of `scatterbook figures --json`, for machine readers and tests. */
+  readonly figuresJson: string;
+}
+
+export interface PartFailure {
+  readonly slug: string;
+  readonly file: string;
+  readonly messages: readonly string[];
+}
+
+export interface Catalog {
+  readonly site: SiteSettings;
+  readonly parts: readonly PartPage[];
+  readonly byClass: ReadonlyArray<{ readonly partClass: string; readonly parts: readonly PartPage[] }>;
+  readonly failures: readonly PartFailure[];
+  readonly generator: string;
+}
+
+const PASSIVE_CLASSES_EXCEPT = new Set(['amplifier']);
+const NON_RECIPROCAL = new Set(['isolator', 'circulator', 'amplifier']);
+
+const cell = (v: number | null, unit: string): Cell => ({ text: formatValue(v, unit), value: v !== null && Number.isFinite(v) ? v : null });
+const atCell = (hz: number | null): Cell => ({ text: hz === null ? '—' : formatFrequency(hz), value: hz });
+const verdictOf = (pass: boolean | null): 'PASS' | 'FAIL' | 'REPORT' => (pass === null ? 'REPORT' : pass ? 'PASS' : 'FAIL');
+
+export function bandRange(fromHz: number, toHz: number): string {
+  return fromHz === toHz ? formatFrequency(fromHz) : `${formatFrequency(fromHz)} to ${formatFrequency(toHz)}`;
+}
+
+function complianceRow(r: CheckResult): ComplianceRow {
+  return {
+    label: r.label,
+    figure: r.figure,
+    on: r.on.join(', '),
+    band: r.band,
+    bandRange: bandRange(r.fromHz, r.toHz),
+    limit: formatLimit(r.limit, r.unit),
+    typical: cell(r.typical, r.unit),
+    worst: cell(r.worst, r.unit),
+    worstUnit: r.worstUnit,
+    at: atCell(r.worstAtHz),
+    margin: cell(r.margin, r.unit),
+    verdict: verdictOf(r.pass),
+    units: r.units.map((u) => ({ unit: u.unit, worst: cell(u.worst, r.unit), at: atCell(u.atHz), margin: cell(u.margin, r.unit), verdict: verdictOf(u.pass) })),
+  };
+}
+
+function headline(part: NormalizedPart, results: readonly CheckResult[]): HeadlineRow[] {
+  const order = CLASS_HEADLINE[part.partClass];
+  const picked: CheckResult[] = [];
+  for (const id of order) for (const r of results) if (r.figure === id && !picked.includes(r)) picked.push(r);
+  const rows = picked.length ? picked : results.filter((r) => r.limit).slice(0, 5);
+  return rows.map((r) => ({ label: r.label, on: r.on.join(', '), bandRange: bandRange(r.fromHz, r.toHz), typical: formatValue(r.typical, r.unit), guaranteed: r.limit ? formatLimit(r.limit, r.unit) : '—' }));
+}
+
+function quality(part: NormalizedPart, u: LoadedUnit): QualityRow {
+  const net = u.network;
+  const p = passivity(net);
+  const q = ieee370Quality(net);
+  const metric = (m: { score: number; grade: string } | null) => (m ? `${trimNumber(m.score, 4)} (${m.grade})` : 'n/a');
+  const active = PASSIVE_CLASSES_EXCEPT.has(part.partClass);
+  const ferrite = NON_RECIPROCAL.has(part.partClass) && !active;
+  let flag: string | null = null;
+  let passText = `largest singular value ${trimNumber(p.max, 5)} at ${formatFrequency(p.atHz)}`;
+  if (active) passText += ': does not apply to an active part';
+  else if (!p.passive) {
+    passText += ': NOT PASSIVE';
+    flag = 'The data of this passive part show gain: check the calibration and the measurement.';
+  } else passText += ': passive';
+  let recText: string;
+  if (net.ports < 2) recText = 'does not apply to a 1-port';
+  else {
+    const r = reciprocity(net);
+    recText = `largest |Sij − Sji| ${trimNumber(r.maxDeviation, 3)}`;
+    if (ferrite) recText += r.reciprocal ? ': reciprocal, which a ferrite part should not be' : ': not reciprocal, as a ferrite part should be';
+    else if (active) recText += ': does not apply to an active part';
+    else if (!r.reciprocal) {
+      recText += ': NOT RECIPROCAL';
+      flag ??= 'The data of this reciprocal part are not reciprocal: check the measurement.';
+    } else recText += ': reciprocal';
+    if (ferrite && r.reciprocal) flag ??= 'A non-reciprocal part measured as reciprocal: check the measurement.';
+  }
+  return { unit: u.unit, passivity: passText, reciprocity: recText, ieee370: `passivity ${metric(q.passivity)}, reciprocity ${metric(q.reciprocity)}, causality ${metric(q.causality)}`, flag };
+}
+
+function measurement(u: LoadedUnit, m: NormalizedPart['measurements'][number] | undefined): MeasurementRow {
+  const net = u.network;
+  const k = net.freqHz.length;
+  const uniform = net.z0.every((r) => r === net.z0[0]);
+  return {
+    unit: u.unit,
+    conditions: Object.entries(u.conditions).map(([key, v]) => `${key}: ${v}`).join(', ') || '—',
+    file: u.file,
+    sha256: u.sha256,
+    points: k,
+    range: bandRange(net.freqHz[0], net.freqHz[k - 1]),
+    reference: uniform ? `${trimNumber(net.z0[0])} Ω` : Array.from(net.z0, (r, i) => `${i + 1}: ${trimNumber(r)} Ω`).join(', '),
+    touchstone: `${u.data.info.version}, ${u.data.info.parameter} ${u.data.info.format}`,
+    notes: m?.notes ?? '',
+  };
+}
+
+export interface PartBuild {
+  readonly page: PartPage | null;
+  readonly failure: PartFailure | null;
+}
+
+/** Builds one part's page model; errors come back as a failure, never thrown. */
+export async function buildPartPage(partFile: string, contentRoot: string, slug: string, settings: SiteSettings): Promise<PartBuild> {
+  const display = relative(process.cwd(), partFile) || partFile;
+  const outcome = await evaluatePartFile(partFile, contentRoot, display);
+  if (!outcome.result || !outcome.part) {
+    return { page: null, failure: { slug, file: display, messages: outcome.errors.map((e: SpecError) => formatSpecError(e, e.file === display ? outcome.source : undefined)) } };
+  }
+  const part = outcome.part;
+  const result = outcome.result;
+  const models = buildPlots(part, outcome.units);
+  const plots: PlotBlock[] = [];
+  for (const m of models) {
+    plots.push({
+      id: m.id,
+      title: m.title,
+      svg: await renderPlot(m, `${slug}-`),
+      legend: m.items.map((label, i) => ({ label, color: PALETTE[i % PALETTE.length], dash: DASHES[i % DASHES.length].join(' ') })),
+      unitCount: m.unitCount,
+      hasLimits: m.regions.length > 0,
+    });
+  }
+  const lo = Math.max(...outcome.units.map((u) => u.network.freqHz[0]));
+  const hi = Math.min(...outcome.units.map((u) => u.network.freqHz[u.network.freqHz.length - 1]));
+  const page: PartPage = {
+    slug,
+    url: `parts/${slug}/`,
+    pdfUrl: null,
+    part: part.part,
+    title: part.title,
+    partClass: part.partClass,
+    revision: part.revision,
+    date: part.date ?? '',
+    vendor: part.vendor ?? settings.vendor,
+    description: part.description ?? '',
+    notesHtml: part.notes ? renderMarkdown(part.notes) : '',
+    packageText: part.packageText ?? '',
+    connector: part.connector ?? '',
+    operatingTemperature: part.operatingTemperature ?? '',
+    ports: Array.from({ length: outcome.units[0]?.network.ports ?? 0 }, (_, i) => ({ number: i + 1, name: part.portNames[i + 1] ?? `Port ${i + 1}` })),
+    pass: result.pass,
+    frequencyRange: bandRange(lo, hi),
+    headline: headline(part, result.results),
+    compliance: result.results.map(complianceRow),
+    plots,
+    measurements: outcome.units.map((u, i) => measurement(u, part.measurements[i])),
+    quality: outcome.units.map((u) => quality(part, u)),
+    ratings: part.ratings.map((r) => ({ parameter: r.parameter, value: r.value, notes: r.notes ?? '' })),
+    cautions: cautionsFor(part.partClass, part.cautions),
+    // safe inside <script type="application/json">: no "<" can close the element
+    figuresJson: JSON.stringify(figuresJson(result)).replace(/</g, '\\u003c'),
+  };
+  return { page, failure: null };
+}
+
+/** The part folders of a content folder: parts/<slug>/part.yaml, in name order. */
+export function partFolders(contentRoot: string): Array<{ slug: string; file: string }> {
+  const dir = join(contentRoot, 'parts');
+  if (!existsSync(dir)) return [];
+  return readdirSync(dir)
+    .filter((name) => !name.startsWith('.') && statSync(join(dir, name)).isDirectory() && existsSync(join(dir, name, 'part.yaml')))
+    .sort()
+    .map((slug) => ({ slug, file: join(dir, slug, 'part.yaml') }));
+}
+
+export function readSettings(contentRoot: string): { settings: SiteSettings; errors: string[] } {
+  const file = join(contentRoot, 'site.yaml');
+  const text = existsSync(file) ? readFileSync(file, 'utf8') : null;
+  const r = loadSettings(text, relative(process.cwd(), file) || file);
+  return { settings: r.value, errors: r.errors.map((e) => formatSpecError(e, text ?? undefined)) };
+}
+
+export function assembleCatalog(site: SiteSettings, parts: readonly PartPage[], failures: readonly PartFailure[], version: string): Catalog {
+  const classes = [...new Set(parts.map((p) => p.partClass))];
+  return {
+    site,
+    parts,
+    byClass: classes.map((c) => ({ partClass: c, parts: parts.filter((p) => p.partClass === c) })),
+    failures,
+    generator: `scatterbook ${version}`,
+  };
+}

@@ -1,0 +1,275 @@
+/**
+ * The data of one plot, ready for a spec: traces of every unit and
+ * parameter, the median and min–max envelope per parameter, and the limits as
+ * forbidden regions over exactly their bands. All in display units (MHz or
+ * GHz chosen from the range; ns or ps for delay).
+ */
+import type { UnitData } from '../evaluate/evaluate.js';
+import { FIGURES } from '../figures/registry.js';
+import type { FigureContext, FigureDef, Item } from '../figures/types.js';
+import { frequencyUnitFor } from '../format/units.js';
+import { bracket } from '../network/interpolate.js';
+import type { NormalizedCheck, NormalizedPart } from '../spec/normalize.js';
+import { parameterName, parseParameter, type SParameter } from '../spec/parameter.js';
+import { CLASS_PLOTS, DOWNWARD, type PlotDef } from './defaults.js';
+
+export interface Region {
+  readonly x0: number;
+  readonly x1: number;
+  readonly y0: number;
+  readonly y1: number;
+}
+
+export interface Edge {
+  readonly x0: number;
+  readonly x1: number;
+  readonly y: number;
+}
+
+export interface TracePoint {
+  readonly x: number;
+  readonly y: number;
+  /** Parameter label, e.g. "S21". */
+  readonly item: string;
+  /** Unit label + parameter: one line each. */
+  readonly trace: string;
+}
+
+export interface BandPoint {
+  readonly x: number;
+  readonly lo: number;
+  readonly hi: number;
+  readonly item: string;
+}
+
+export interface PlotModel {
+  readonly id: string;
+  readonly title: string;
+  /** A sentence for screen readers: what is drawn, over what, against which limits. */
+  readonly description: string;
+  readonly xTitle: string;
+  readonly yTitle: string;
+  readonly xDomain: readonly [number, number];
+  readonly yDomain: readonly [number, number];
+  readonly downward: boolean;
+  readonly items: readonly string[];
+  readonly traces: readonly TracePoint[];
+  readonly median: readonly TracePoint[];
+  readonly envelope: readonly BandPoint[];
+  readonly regions: readonly Region[];
+  readonly edges: readonly Edge[];
+  readonly unitCount: number;
+}
+
+interface Display {
+  readonly scale: number;
+  readonly label: string;
+}
+
+function valueDisplay(unit: string, values: number[]): Display {
+  if (unit === 's') {
+    const m = Math.max(...values.map(Math.abs).filter(Number.isFinite), 0);
+    return m < 1e-9 ? { scale: 1e12, label: 'ps' } : { scale: 1e9, label: 'ns' };
+  }
+  return { scale: 1, label: unit === 'deg' ? 'deg' : unit };
+}
+
+/** The plot definitions of a part: its own `plots` (replacing), or the class defaults plus `extra-plots`. */
+export function plotDefs(part: NormalizedPart): PlotDef[] {
+  const own = (key: 'plots' | 'extra-plots'): PlotDef[] | null => {
+    const list = part.spec[key];
+    if (!Array.isArray(list)) return null;
+    return list.flatMap((p) => {
+      if (typeof p !== 'object' || p === null || Array.isArray(p) || typeof p.figure !== 'string') return [];
+      const on = Array.isArray(p.on) ? (p.on.filter((x) => typeof x === 'string') as string[]) : undefined;
+      const range = typeof p.band === 'string' ? { band: p.band } : p.range === 'limits' ? 'limits' : 'all';
+      return [{ figure: p.figure, on, range, title: typeof p.title === 'string' ? p.title : undefined } as PlotDef];
+    });
+  };
+  const replaced = own('plots');
+  if (replaced) return replaced;
+  const base = CLASS_PLOTS[part.partClass].length ? [...CLASS_PLOTS[part.partClass]] : genericPlots(part);
+  return [...base, ...(own('extra-plots') ?? [])];
+}
+
+/** For parts without class defaults: one plot per trace figure the limits use. */
+function genericPlots(part: NormalizedPart): PlotDef[] {
+  const seen = new Set<string>();
+  const out: PlotDef[] = [];
+  for (const c of part.checks) {
+    if (c.figure.shape !== 'trace' || seen.has(c.figure.id)) continue;
+    seen.add(c.figure.id);
+    out.push({ figure: c.figure.id, range: 'limits' });
+  }
+  return out;
+}
+
+function figureFor(part: NormalizedPart, id: string): FigureDef | undefined {
+  return FIGURES.get(id) ?? part.checks.find((c) => c.figure.id === id)?.figure;
+}
+
+function itemsFor(def: PlotDef, fig: FigureDef, matching: readonly NormalizedCheck[], ports: number): Item[] {
+  if (fig.operands === 'port-pair') {
+    const [a, b] = def.ports ?? [1, 2];
+    if (Math.max(a, b) > ports) return [];
+    const four: SParameter[] = [{ to: a, from: a }, { to: b, from: a }, { to: a, from: b }, { to: b, from: b }];
+    return [{ params: four, label: `ports ${a}, ${b}` }];
+  }
+  const own = matching.filter((c) => c.figure.id === fig.id).flatMap((c) => c.items);
+  let items: Item[];
+  if (own.length) items = own;
+  else if (fig.operands === 'expression') return matching[0]?.items.slice() ?? [];
+  else {
+    const names = def.on ?? [];
+    const params = names.map(parseParameter).flatMap((p) => (p.ok ? [p.value] : []));
+    items = fig.operands === 'pair' ? (params.length === 2 ? [{ params, label: params.map(parameterName).join('/') }] : []) : params.map((p) => ({ params: [p], label: parameterName(p) }));
+  }
+  const unique = new Map(items.map((i) => [i.label, i]));
+  return [...unique.values()].filter((i) => i.params.every((p) => p.to <= ports && p.from <= ports));
+}
+
+function rangeFor(def: PlotDef, part: NormalizedPart, matching: readonly NormalizedCheck[], lo: number, hi: number): [number, number] | null {
+  if (def.range === 'all') return [lo, hi];
+  if (typeof def.range === 'object') {
+    const b = part.bands.get(def.range.band);
+    return b ? [Math.max(lo, b.fromHz), Math.min(hi, b.toHz)] : null;
+  }
+  if (!matching.length) return null;
+  const from = Math.min(...matching.map((c) => c.band.fromHz));
+  const to = Math.max(...matching.map((c) => c.band.toHz));
+  const pad = Math.max((to - from) * 0.25, ((from + to) / 2) * 0.02);
+  return [Math.max(lo, from - pad), Math.min(hi, to + pad)];
+}
+
+function valueAt(freq: Float64Array, v: Float64Array, f: number): number {
+  const i = bracket(freq, f);
+  if (freq[i] === f || i + 1 >= freq.length) return v[i];
+  const t = (f - freq[i]) / (freq[i + 1] - freq[i]);
+  return v[i] + t * (v[i + 1] - v[i]);
+}
+
+function median(xs: number[]): number {
+  const s = xs.filter(Number.isFinite).sort((a, b) => a - b);
+  if (!s.length) return NaN;
+  const m = s.length >> 1;
+  return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
+}
+
+export function buildPlots(part: NormalizedPart, units: readonly UnitData[]): PlotModel[] {
+  if (!units.length) return [];
+  const ports = units[0].network.ports;
+  const lo = Math.max(...units.map((u) => u.network.freqHz[0]));
+  const hi = Math.min(...units.map((u) => u.network.freqHz[u.network.freqHz.length - 1]));
+  const out: PlotModel[] = [];
+  plotDefs(part).forEach((def, index) => {
+    const fig = figureFor(part, def.figure);
+    if (!fig || fig.shape !== 'trace' || !fig.perPoint) return;
+    const limitsFrom = def.limitsFrom ?? [def.figure];
+    const matching = part.checks.filter((c) => limitsFrom.includes(c.figure.id));
+    const items = itemsFor(def, fig, matching, ports);
+    const range = rangeFor(def, part, matching, lo, hi);
+    if (!items.length || !range || !(range[1] > range[0])) return;
+    const model = buildOne(part, units, def, fig, items, matching, range, index);
+    if (model) out.push(model);
+  });
+  return out;
+}
+
+function buildOne(part: NormalizedPart, units: readonly UnitData[], def: PlotDef, fig: FigureDef, items: readonly Item[], matching: readonly NormalizedCheck[], range: [number, number], index: number): PlotModel | null {
+  const [x0, x1] = range;
+  const fu = frequencyUnitFor(x1);
+  const nominal = matching.find((c) => c.figure.id === fig.id && c.nominal !== null)?.nominal ?? null;
+  // per unit and item: the figure's values on that unit's grid
+  const perItem = items.map((item) =>
+    units.map((u) => {
+      const ctx: FigureContext = {
+        network: u.network,
+        part: { partClass: part.partClass, ways: part.ways, phaseSplitDeg: part.phaseSplitDeg },
+        aperture: matching.find((c) => c.figure.id === fig.id)?.aperture ?? 1,
+        levelDb: 3,
+        nominal,
+        band: { fromHz: x0, toHz: x1 },
+      };
+      return { unit: u.unit, freq: u.network.freqHz, values: (fig.perPoint as NonNullable<FigureDef['perPoint']>)(ctx, item) };
+    }),
+  );
+  const all: number[] = [];
+  for (const series of perItem) for (const s of series) s.freq.forEach((f, k) => f >= x0 && f <= x1 && Number.isFinite(s.values[k]) && all.push(s.values[k]));
+  if (!all.length) return null;
+  const disp = valueDisplay(fig.unit, all);
+  const traces: TracePoint[] = [];
+  const med: TracePoint[] = [];
+  const env: BandPoint[] = [];
+  items.forEach((item, i) => {
+    for (const s of perItem[i]) {
+      s.freq.forEach((f, k) => {
+        if (f < x0 || f > x1 || !Number.isFinite(s.values[k])) return;
+        traces.push({ x: f / fu.scale, y: s.values[k] * disp.scale, item: item.label, trace: `${s.unit} ${item.label}` });
+      });
+    }
+    const ref = perItem[i][0];
+    ref.freq.forEach((f) => {
+      if (f < x0 || f > x1) return;
+      const vals = perItem[i].map((s) => valueAt(s.freq, s.values, f)).filter(Number.isFinite);
+      if (!vals.length) return;
+      med.push({ x: f / fu.scale, y: median(vals) * disp.scale, item: item.label, trace: `median ${item.label}` });
+      if (units.length > 1) env.push({ x: f / fu.scale, lo: Math.min(...vals) * disp.scale, hi: Math.max(...vals) * disp.scale, item: item.label });
+    });
+  });
+  // limit values, for the domain and the regions
+  const limitYs: number[] = [];
+  for (const c of matching) {
+    const l = c.limit;
+    if (!l) continue;
+    for (const v of [l.max, l.min, l.nominal !== undefined && l.tolerance !== undefined ? l.nominal - l.tolerance : undefined, l.nominal !== undefined && l.tolerance !== undefined ? l.nominal + l.tolerance : undefined]) {
+      if (v !== undefined && Number.isFinite(v)) limitYs.push(v * disp.scale);
+    }
+  }
+  const ys = traces.map((t) => t.y).concat(limitYs);
+  let yMin = Math.min(...ys), yMax = Math.max(...ys);
+  const span = yMax - yMin || Math.abs(yMax) * 0.1 || 1;
+  yMin -= span * 0.08;
+  yMax += span * 0.08;
+  const regions: Region[] = [];
+  const edges: Edge[] = [];
+  for (const c of matching) {
+    const l = c.limit;
+    if (!l) continue;
+    const bx0 = Math.max(c.band.fromHz, x0) / fu.scale, bx1 = Math.min(c.band.toHz, x1) / fu.scale;
+    if (!(bx1 >= bx0)) continue;
+    const add = (from: number, to: number, edge: number) => {
+      regions.push({ x0: bx0, x1: bx1, y0: from, y1: to });
+      edges.push({ x0: bx0, x1: bx1, y: edge });
+    };
+    if (l.tolerance !== undefined && l.nominal !== undefined) {
+      add((l.nominal + l.tolerance) * disp.scale, yMax, (l.nominal + l.tolerance) * disp.scale);
+      add(yMin, (l.nominal - l.tolerance) * disp.scale, (l.nominal - l.tolerance) * disp.scale);
+    }
+    if (l.max !== undefined) add(l.max * disp.scale, yMax, l.max * disp.scale);
+    if (l.min !== undefined) add(yMin, l.min * disp.scale, l.min * disp.scale);
+  }
+  const title = def.title ?? fig.title;
+  const limitText = matching.filter((c) => c.limit).map((c) => `${c.label} over ${c.band.name}`).join('; ');
+  const itemText = items.map((i) => i.label).join(', ');
+  return {
+    id: `plot-${index + 1}`,
+    title,
+    description: `${title}: ${fig.title.toLowerCase()} of ${itemText} for ${units.length} measured unit${units.length === 1 ? '' : 's'} from ${trim(x0 / fu.scale)} to ${trim(x1 / fu.scale)} ${fu.unit}${units.length > 1 ? ', with the median drawn bold and the spread of the units shaded' : ''}${limitText ? `; shaded regions mark values the limits forbid (${limitText})` : ''}.`,
+    xTitle: `Frequency (${fu.unit})`,
+    yTitle: disp.label ? `${fig.title} (${disp.label})` : fig.title,
+    xDomain: [x0 / fu.scale, x1 / fu.scale],
+    yDomain: [yMin, yMax],
+    downward: DOWNWARD.has(fig.id),
+    items: items.map((i) => i.label),
+    traces,
+    median: med,
+    envelope: env,
+    regions,
+    edges,
+    unitCount: units.length,
+  };
+}
+
+function trim(v: number): string {
+  return String(Number(v.toPrecision(6)));
+}

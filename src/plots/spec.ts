@@ -1,0 +1,71 @@
+/**
+ * PlotModel → a Vega-Lite specification (JSON only; data by name, supplied at
+ * render time). Colours are our own: a blue, an ochre, a green and a purple
+ * that stay apart for the common colour-vision deficiencies and in greyscale
+ * (they differ in lightness, and each parameter has its own dash pattern);
+ * forbidden regions are a translucent brick red with a solid edge.
+ */
+import type { PlotModel } from './model.js';
+
+export const PALETTE = ['#1f4e8c', '#b5651d', '#2e7d5b', '#6d4a99'] as const;
+export const DASHES: ReadonlyArray<readonly number[]> = [[1, 0], [7, 3], [2, 2], [9, 3, 2, 3]];
+export const LIMIT_FILL = '#c0392b';
+export const ENVELOPE_OPACITY = 0.18;
+
+export const WIDTH = 620;
+export const HEIGHT = 250;
+
+export function plotSpec(m: PlotModel): Record<string, unknown> {
+  const x = { field: 'x', type: 'quantitative', title: m.xTitle, scale: { domain: [...m.xDomain], nice: false, zero: false } };
+  const y = { field: 'y', type: 'quantitative', title: m.yTitle, scale: { domain: [...m.yDomain], nice: false, zero: false, reverse: m.downward } };
+  const color = { field: 'item', type: 'nominal', title: 'Parameter', scale: { domain: [...m.items], range: PALETTE.slice(0, Math.max(1, m.items.length)) } };
+  const dash = { field: 'item', type: 'nominal', legend: null, scale: { domain: [...m.items], range: DASHES.slice(0, Math.max(1, m.items.length)) } };
+  const layers: Record<string, unknown>[] = [
+    {
+      data: { name: 'regions' },
+      mark: { type: 'rect', color: LIMIT_FILL, opacity: 0.16, clip: true },
+      encoding: { x: { ...x, field: 'x0' }, x2: { field: 'x1' }, y: { ...y, field: 'y0' }, y2: { field: 'y1' } },
+    },
+  ];
+  if (m.unitCount > 1) {
+    layers.push({
+      data: { name: 'envelope' },
+      mark: { type: 'area', opacity: ENVELOPE_OPACITY, clip: true },
+      encoding: { x, y: { ...y, field: 'lo' }, y2: { field: 'hi' }, color: { ...color, legend: null }, detail: { field: 'item' } },
+    });
+    layers.push({
+      data: { name: 'traces' },
+      mark: { type: 'line', strokeWidth: 0.8, opacity: 0.55, clip: true },
+      encoding: { x, y, color: { ...color, legend: null }, detail: { field: 'trace' } },
+    });
+  }
+  layers.push({
+    data: { name: 'median' },
+    mark: { type: 'line', strokeWidth: m.unitCount > 1 ? 2.2 : 1.6, clip: true },
+    encoding: { x, y, color: { ...color, legend: null }, strokeDash: dash },
+  });
+  layers.push({
+    data: { name: 'edges' },
+    mark: { type: 'rule', color: LIMIT_FILL, strokeWidth: 1.4, clip: true },
+    encoding: { x: { ...x, field: 'x0' }, x2: { field: 'x1' }, y: { ...y, field: 'y' } },
+  });
+  return {
+    $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
+    width: WIDTH,
+    height: HEIGHT,
+    title: { text: m.title, anchor: 'start', fontSize: 13 },
+    config: {
+      font: 'Inter, Helvetica, Arial, sans-serif',
+      axis: { labelFontSize: 10, titleFontSize: 11, gridColor: '#d9dde3', domainColor: '#4a4f57', tickColor: '#4a4f57', labelColor: '#2b2f36', titleColor: '#2b2f36' },
+      view: { stroke: '#9aa1ab' },
+      background: 'white',
+    },
+    resolve: { scale: { color: 'shared', strokeDash: 'shared' } },
+    layer: layers,
+  };
+}
+
+/** The named datasets the spec reads. */
+export function plotData(m: PlotModel): Record<string, readonly object[]> {
+  return { regions: m.regions, envelope: m.envelope, traces: m.traces, median: m.median, edges: m.edges };
+}

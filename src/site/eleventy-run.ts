@@ -1,0 +1,14 @@
+/** Runs Eleventy on our pages with our configuration file, into a given folder. */
+import { join } from 'node:path';
+import Eleventy from '@11ty/eleventy';
+import type { Catalog } from '../pipeline/catalog.js';
+import { handOverCatalog, PACKAGE_ROOT, PAGES_DIR } from './plugin.js';
+
+export async function writeSite(content: string, catalog: Catalog, outDir: string): Promise<void> {
+  handOverCatalog(content, catalog);
+  const elev = new Eleventy(PAGES_DIR, outDir, { quietMode: true, configPath: join(PACKAGE_ROOT, '.eleventy.js') });
+  // Eleventy prints a summary line even in quiet mode; scatterbook prints its own. Its errors still throw from write().
+  const quiet = { log() {}, info() {}, warn() {}, error() {} };
+  (elev as unknown as { logger: { overrideLogger(l: unknown): void } }).logger.overrideLogger(quiet);
+  await elev.write();
+}

@@ -1,0 +1,58 @@
+/**
+ * The Eleventy plugin: the only place that knows Eleventy. It hands the
+ * catalog (computed in TypeScript first) to the templates as global data,
+ * sets up Nunjucks with autoescaping and a template search path in which the
+ * content folder's `_includes/` comes before ours (so a vendor overrides a
+ * template by writing one of the same name), and copies the assets.
+ */
+import { existsSync } from 'node:fs';
+import { dirname, join, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import type { UserConfig } from '@11ty/eleventy';
+import nunjucks from 'nunjucks';
+import type { Catalog } from '../pipeline/catalog.js';
+
+/** The package root (this file is src/site/plugin.ts, or dist/site/plugin.js once compiled). */
+export const PACKAGE_ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '../..');
+export const PAGES_DIR = join(PACKAGE_ROOT, 'src/site/pages');
+export const INCLUDES_DIR = join(PACKAGE_ROOT, 'src/site/_includes');
+export const ASSETS_DIR = join(PACKAGE_ROOT, 'src/site/assets');
+
+export interface SitePluginOptions {
+  /** The content folder (parts/, site.yaml, _includes/, assets/). */
+  readonly content: string;
+  /** The catalog, or how to make it (a plain Eleventy run computes it here). */
+  readonly catalog: Catalog | (() => Promise<Catalog>);
+}
+
+let handed: { content: string; catalog: Catalog } | null = null;
+
+/** `scatterbook build` computes the catalog first and hands it over here, for the config to pick up. */
+export function handOverCatalog(content: string, catalog: Catalog): void {
+  handed = { content, catalog };
+}
+
+/** The catalog handed over by `scatterbook build`, if any (a plain Eleventy run has none). */
+export function handedCatalog(): { content: string; catalog: Catalog } | null {
+  return handed;
+}
+
+export function templateSearchPath(content: string): string[] {
+  const own = join(content, '_includes');
+  return existsSync(own) ? [own, INCLUDES_DIR] : [INCLUDES_DIR];
+}
+
+export function scatterbookSite(config: UserConfig, options: SitePluginOptions): void {
+  const env = new nunjucks.Environment(new nunjucks.FileSystemLoader(templateSearchPath(options.content), { noCache: true }), {
+    autoescape: true,
+    throwOnUndefined: false,
+    trimBlocks: true,
+    lstripBlocks: true,
+  });
+  config.setLibrary('njk', env);
+  config.addGlobalData('catalog', typeof options.catalog === 'function' ? options.catalog : () => options.catalog);
+  config.addPassthroughCopy({ [ASSETS_DIR]: 'assets' });
+  const vendorAssets = join(options.content, 'assets');
+  if (existsSync(vendorAssets)) config.addPassthroughCopy({ [vendorAssets]: 'assets' });
+  config.addWatchTarget(options.content);
+}

@@ -1,0 +1,78 @@
+/**
+ * content/site.yaml: the catalog's own settings, every one optional, with
+ * defaults that look right with no file at all. Checked by the same schema
+ * language as part files.
+ */
+import { LineCounter, parseDocument } from 'yaml';
+import type { SpecError } from '../spec/diagnostics.js';
+import type { Schema } from '../spec/schema-dsl.js';
+import { validate, type Plain } from '../spec/validate.js';
+
+export interface SiteSettings {
+  readonly vendor: string;
+  readonly tagline: string;
+  /** Path of a logo inside the content folder's assets/, or null. */
+  readonly logo: string | null;
+  readonly accent: string;
+  readonly paper: 'A4' | 'Letter';
+  readonly footer: string;
+  readonly disclaimer: string;
+  readonly baseUrl: string;
+  readonly stylesheet: string | null;
+}
+
+export const DEFAULT_DISCLAIMER =
+  'Figures are computed from the measured units listed on each datasheet and describe those units; they are typical measurements, not a guarantee for every unit, except where a limit is marked as guaranteed. The application\'s own qualification and local codes and regulations govern use.';
+
+export const SITE_SCHEMA: Schema = {
+  t: 'object',
+  description: 'Settings of a scatterbook catalog site',
+  fields: {
+    vendor: { t: 'string', description: 'the vendor\'s name, on every page' },
+    tagline: { t: 'string', description: 'a line under the vendor\'s name on the index' },
+    logo: { t: 'string', description: 'a logo image, relative to the content folder (e.g. assets/logo.svg)' },
+    accent: { t: 'string', pattern: '^#[0-9a-fA-F]{6}$', patternHint: '#RRGGBB', description: 'the accent colour, #RRGGBB' },
+    paper: { t: 'string', enum: ['A4', 'Letter'], description: 'paper size of the PDFs and print stylesheet' },
+    footer: { t: 'string', description: 'text at the foot of every page' },
+    disclaimer: { t: 'string', description: 'the disclaimer under every datasheet' },
+    'base-url': { t: 'string', description: 'where the site will be published, e.g. https://example.invalid/datasheets/' },
+    stylesheet: { t: 'string', description: 'an extra stylesheet, relative to the content folder (e.g. assets/vendor.css)' },
+  },
+};
+
+export function defaultSettings(): SiteSettings {
+  return { vendor: 'Datasheets', tagline: '', logo: null, accent: '#1f4e8c', paper: 'A4', footer: '', disclaimer: DEFAULT_DISCLAIMER, baseUrl: '/', stylesheet: null };
+}
+
+export function loadSettings(text: string | null, file: string): { value: SiteSettings; errors: SpecError[] } {
+  const d = defaultSettings();
+  if (text === null) return { value: d, errors: [] };
+  const lines = new LineCounter();
+  const doc = parseDocument(text, { version: '1.2', lineCounter: lines, prettyErrors: false });
+  if (doc.errors.length) {
+    return { value: d, errors: doc.errors.map((e) => ({ code: 'yaml-syntax', file, message: `YAML syntax: ${e.message.split(' at line')[0]}`, ...toPos(lines, e.pos[0]) })) };
+  }
+  if (doc.contents === null) return { value: d, errors: [] };
+  const r = validate(doc.contents, SITE_SCHEMA, file, lines);
+  const v = (r.value ?? {}) as Record<string, Plain>;
+  const s = (k: string) => (typeof v[k] === 'string' ? (v[k] as string) : undefined);
+  return {
+    value: {
+      vendor: s('vendor') ?? d.vendor,
+      tagline: s('tagline') ?? d.tagline,
+      logo: s('logo') ?? null,
+      accent: s('accent') ?? d.accent,
+      paper: (s('paper') as SiteSettings['paper']) ?? d.paper,
+      footer: s('footer') ?? d.footer,
+      disclaimer: s('disclaimer') ?? d.disclaimer,
+      baseUrl: s('base-url') ?? d.baseUrl,
+      stylesheet: s('stylesheet') ?? null,
+    },
+    errors: r.errors,
+  };
+}
+
+function toPos(lines: LineCounter, offset: number) {
+  const p = lines.linePos(offset);
+  return { line: p.line, column: p.col };
+}
