@@ -13,10 +13,13 @@ export default function (eleventyConfig) {
   const handed = handedCatalog();
   if (handed) eleventyConfig.setQuietMode(true); // scatterbook build prints its own summary
   const content = handed?.content ?? process.env.SCATTERBOOK_CONTENT ?? 'content';
+  const cacheDir = process.env.SCATTERBOOK_CACHE ?? null;
   scatterbookSite(eleventyConfig, {
     content,
-    catalog: handed?.catalog ?? (async () => (await buildCatalog(content, { version, cacheDir: null })).catalog),
+    // without a handed-over catalog (a plain run, or scatterbook serve) it is computed at each build
+    catalog: handed?.catalog ?? (async () => (await buildCatalog(content, { version, cacheDir })).catalog),
   });
-  // a plain run writes _site/; scatterbook build names its own (temporary) output folder
-  return { dir: handed ? { input: PAGES_DIR } : { input: PAGES_DIR, output: '_site' }, templateFormats: ['njk'] };
+  // a plain run writes _site/ (or SCATTERBOOK_OUT); scatterbook build names its own (temporary) folder
+  const output = process.env.SCATTERBOOK_OUT ?? '_site';
+  return { dir: handed ? { input: PAGES_DIR } : { input: PAGES_DIR, output }, templateFormats: ['njk'] };
 }

@@ -8,6 +8,7 @@ import { readFileSync } from 'node:fs';
 import { join, relative, resolve } from 'node:path';
 import { discard, stagingFolder, swapInto } from '../io/swap.js';
 import { buildCatalog } from '../pipeline/build-catalog.js';
+import { closePlotPool } from '../plots/pool.js';
 import { writeSite } from '../site/eleventy-run.js';
 import { PACKAGE_ROOT } from '../site/plugin.js';
 import { parseArgs, UsageError, type FlagSpec } from './args.js';
@@ -55,6 +56,7 @@ export async function runBuild(o: BuildOptions, t: Terminal): Promise<{ code: 0 
     onPart: (done, total, slug) => bar.update(`parts ${done}/${total}  ${slug}`),
   });
   bar.done();
+  await closePlotPool();
   const { catalog } = built;
   const problems = [...built.settingsErrors, ...catalog.failures.flatMap((f) => f.messages)];
   for (const m of problems) t.stderr.write(`${m}\n`);

@@ -5,9 +5,10 @@ import { buildCommand } from './build-command.js';
 import { figuresCommand } from './figures-command.js';
 import { readCommand } from './read-command.js';
 import { schemaCommand } from './schema-command.js';
+import { serveCommand } from './serve-command.js';
 import type { Terminal } from './terminal.js';
 
-export const COMMANDS: readonly Command[] = [buildCommand, readCommand, figuresCommand, schemaCommand];
+export const COMMANDS: readonly Command[] = [buildCommand, serveCommand, readCommand, figuresCommand, schemaCommand];
 
 export function usage(): string {
   const lines = ['scatterbook: checked RF component datasheets from Touchstone measurements', '', 'commands:'];

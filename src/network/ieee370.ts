@@ -56,12 +56,13 @@ function scoreFromWeights(weights: Float64Array): number {
   return (Math.max(n - sum, 0) / n) * 100;
 }
 
-export function passivityMetric(net: Network): QualityMetric {
+/** `perFrequency`: the largest singular value at each frequency, when the caller has it already (quality.ts). */
+export function passivityMetric(net: Network, perFrequency?: Float64Array): QualityMetric {
   const n = net.ports;
   const k = net.freqHz.length;
   const w = new Float64Array(k);
   for (let q = 0; q < k; q++) {
-    const pm = spectralNorm(net.s, 2 * n * n * q, n);
+    const pm = perFrequency ? perFrequency[q] : spectralNorm(net.s, 2 * n * n * q, n);
     w[q] = pm > PASSIVITY_THRESHOLD ? (pm - PASSIVITY_THRESHOLD) / WEIGHT_SCALE : 0;
   }
   const score = scoreFromWeights(w);
@@ -114,6 +115,6 @@ export function causalityMetric(net: Network): QualityMetric | null {
   return { score: worst, grade: gradeOf(worst, CAUSALITY_BOUNDS) };
 }
 
-export function ieee370Quality(net: Network): Ieee370Quality {
-  return { passivity: passivityMetric(net), reciprocity: reciprocityMetric(net), causality: causalityMetric(net) };
+export function ieee370Quality(net: Network, passivityPerFrequency?: Float64Array): Ieee370Quality {
+  return { passivity: passivityMetric(net, passivityPerFrequency), reciprocity: reciprocityMetric(net), causality: causalityMetric(net) };
 }

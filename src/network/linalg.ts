@@ -168,16 +168,73 @@ export function symmetricEigenvalues(a: Float64Array, n: number): Float64Array {
 }
 
 /**
- * Singular values of the complex n×n matrix at `src[off…]`, descending.
- * They are the square roots of the eigenvalues of the Hermitian matrix SᴴS,
- * found through its real symmetric 2n×2n embedding [[A, −B], [B, A]] (whose
- * spectrum is that of SᴴS, each value twice).
+ * Eigenvalues of a Hermitian n×n matrix (interleaved re/im, overwritten) by
+ * the cyclic complex Jacobi method, descending. Each step first turns the
+ * pivot A[p][q] real by a phase on row and column q, then applies the real
+ * Jacobi rotation that zeroes it.
  */
-export function singularValues(src: Float64Array, off: number, n: number): Float64Array {
-  const h = new Float64Array(2 * n * n);
-  // h = Sᴴ S
+export function hermitianEigenvalues(a: Float64Array, n: number): Float64Array {
+  const re = (i: number, j: number) => 2 * (i * n + j);
+  for (let sweep = 0; sweep < 60; sweep++) {
+    let off = 0, diag = 0;
+    for (let i = 0; i < n; i++) {
+      diag += a[re(i, i)] * a[re(i, i)];
+      for (let j = i + 1; j < n; j++) off += a[re(i, j)] ** 2 + a[re(i, j) + 1] ** 2;
+    }
+    if (off <= 1e-32 * (diag || 1)) break;
+    for (let p = 0; p < n; p++) {
+      for (let q = p + 1; q < n; q++) {
+        const zr = a[re(p, q)], zi = a[re(p, q) + 1];
+        const r = Math.hypot(zr, zi);
+        if (r === 0) continue;
+        // phase: column q times e^(−iφ), row q times e^(iφ), where z = r·e^(iφ)
+        const er = zr / r, ei = zi / r;
+        for (let k = 0; k < n; k++) {
+          if (k !== q) {
+            const c0 = re(k, q), c1 = c0 + 1; // A[k][q] · conj(e)
+            const xr = a[c0], xi = a[c1];
+            a[c0] = xr * er + xi * ei;
+            a[c1] = xi * er - xr * ei;
+            const r0 = re(q, k), r1 = r0 + 1; // A[q][k] · e
+            const yr = a[r0], yi = a[r1];
+            a[r0] = yr * er - yi * ei;
+            a[r1] = yr * ei + yi * er;
+          }
+        }
+        // now A[p][q] = A[q][p] = r (real); the real rotation that zeroes it
+        const app = a[re(p, p)], aqq = a[re(q, q)];
+        const theta = (aqq - app) / (2 * r);
+        const t = Math.sign(theta || 1) / (Math.abs(theta) + Math.sqrt(theta * theta + 1));
+        const c = 1 / Math.sqrt(t * t + 1);
+        const sn = t * c;
+        for (let k = 0; k < n; k++) {
+          for (let part = 0; part < 2; part++) {
+            const kp = re(k, p) + part, kq = re(k, q) + part;
+            const x = a[kp], y = a[kq];
+            a[kp] = c * x - sn * y;
+            a[kq] = sn * x + c * y;
+          }
+        }
+        for (let k = 0; k < n; k++) {
+          for (let part = 0; part < 2; part++) {
+            const pk = re(p, k) + part, qk = re(q, k) + part;
+            const x = a[pk], y = a[qk];
+            a[pk] = c * x - sn * y;
+            a[qk] = sn * x + c * y;
+          }
+        }
+      }
+    }
+  }
+  const out = new Float64Array(n);
+  for (let i = 0; i < n; i++) out[i] = a[re(i, i)];
+  return out.sort().reverse();
+}
+
+/** SᴴS of the complex n×n matrix at `src[off…]`, into `h`. */
+function gram(src: Float64Array, off: number, n: number, h: Float64Array): void {
   for (let i = 0; i < n; i++) {
-    for (let j = 0; j < n; j++) {
+    for (let j = i; j < n; j++) {
       let re = 0, im = 0;
       for (let k = 0; k < n; k++) {
         const a = off + 2 * (k * n + i); // conj(S[k][i])
@@ -188,27 +245,33 @@ export function singularValues(src: Float64Array, off: number, n: number): Float
       }
       h[2 * (i * n + j)] = re;
       h[2 * (i * n + j) + 1] = im;
+      h[2 * (j * n + i)] = re;
+      h[2 * (j * n + i) + 1] = -im;
     }
   }
-  const m = 2 * n;
-  const e = new Float64Array(m * m);
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j < n; j++) {
-      const re = h[2 * (i * n + j)], im = h[2 * (i * n + j) + 1];
-      e[i * m + j] = re;
-      e[(i + n) * m + (j + n)] = re;
-      e[i * m + (j + n)] = -im;
-      e[(i + n) * m + j] = im;
-    }
-  }
-  const ev = symmetricEigenvalues(e, m);
-  const out = new Float64Array(n);
-  for (let i = 0; i < n; i++) out[i] = Math.sqrt(Math.max(0, ev[2 * i]));
-  return out;
 }
 
-/** Largest singular value (the spectral norm) of the complex n×n matrix at `src[off…]`. */
-export function spectralNorm(src: Float64Array, off: number, n: number): number {
+/**
+ * Singular values of the complex n×n matrix at `src[off…]`, descending: the
+ * square roots of the eigenvalues of the Hermitian matrix SᴴS.
+ */
+export function singularValues(src: Float64Array, off: number, n: number, work: Float64Array = new Float64Array(2 * n * n)): Float64Array {
+  gram(src, off, n, work);
+  const ev = hermitianEigenvalues(work, n);
+  return ev.map((v) => Math.sqrt(Math.max(0, v)));
+}
+
+/**
+ * Largest singular value (the spectral norm) of the complex n×n matrix at
+ * `src[off…]`. A 2×2 has it in closed form: λmax of SᴴS = (tr + √(tr² − 4·det))/2.
+ */
+export function spectralNorm(src: Float64Array, off: number, n: number, work: Float64Array = new Float64Array(2 * n * n)): number {
   if (n === 1) return Math.hypot(src[off], src[off + 1]);
-  return singularValues(src, off, n)[0];
+  if (n === 2) {
+    gram(src, off, 2, work);
+    const a = work[0], d = work[6], br = work[2], bi = work[3];
+    const tr = a + d, det = a * d - (br * br + bi * bi);
+    return Math.sqrt(Math.max(0, (tr + Math.sqrt(Math.max(0, tr * tr - 4 * det))) / 2));
+  }
+  return singularValues(src, off, n, work)[0];
 }

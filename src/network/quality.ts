@@ -31,9 +31,10 @@ export function passivity(net: Network, tolerance = PASSIVITY_TOLERANCE): Passiv
   const n = net.ports;
   const k = net.freqHz.length;
   const per = new Float64Array(k);
+  const work = new Float64Array(2 * n * n);
   let max = -Infinity, at = NaN;
   for (let q = 0; q < k; q++) {
-    const v = spectralNorm(net.s, 2 * n * n * q, n);
+    const v = spectralNorm(net.s, 2 * n * n * q, n, work);
     per[q] = v;
     if (v > max) {
       max = v;

@@ -7,11 +7,13 @@ import { mkdirSync, readFileSync, statSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { writeFileAtomic } from '../io/atomic.js';
 import { assembleCatalog, buildPartPage, partFolders, readSettings, type Catalog, type PartFailure, type PartPage } from './catalog.js';
+import type { StageTimes } from './part.js';
 
 export interface BuildCatalogOptions {
   readonly cacheDir?: string | null;
   readonly version: string;
   readonly onPart?: (done: number, total: number, slug: string) => void;
+  readonly times?: StageTimes;
 }
 
 export interface CatalogBuild {
@@ -52,25 +54,35 @@ export async function buildCatalog(contentRoot: string, options: BuildCatalogOpt
   } catch {
     settingsText = '';
   }
+  // parts build a few at a time, so that plots drawn in worker threads overlap the next part's figures;
+  // results keep the folders' order
+  const results: Array<{ page: PartPage | null; failure: PartFailure | null }> = new Array(folders.length);
   let done = 0;
-  for (const { slug, file } of folders) {
-    const key = options.cacheDir ? cacheKey(file, settingsText, options.version) : null;
-    const cached = key && options.cacheDir ? readCache(join(options.cacheDir, `${slug}-${key}.json`)) : null;
-    if (cached) {
-      pages.push(cached);
-      hits++;
-    } else {
-      const b = await buildPartPage(file, contentRoot, slug, settings);
-      if (b.page) {
-        pages.push(b.page);
-        if (key && options.cacheDir) {
+  let nextIndex = 0;
+  const worker = async () => {
+    while (nextIndex < folders.length) {
+      const i = nextIndex++;
+      const { slug, file } = folders[i];
+      const key = options.cacheDir ? cacheKey(file, settingsText, options.version) : null;
+      const cached = key && options.cacheDir ? readCache(join(options.cacheDir, `${slug}-${key}.json`)) : null;
+      if (cached) {
+        results[i] = { page: cached, failure: null };
+        hits++;
+      } else {
+        const b = await buildPartPage(file, contentRoot, slug, settings, options.times);
+        if (b.page && key && options.cacheDir) {
           mkdirSync(options.cacheDir, { recursive: true });
           writeFileAtomic(join(options.cacheDir, `${slug}-${key}.json`), JSON.stringify(b.page));
         }
+        results[i] = b;
       }
-      if (b.failure) failures.push(b.failure);
+      options.onPart?.(++done, folders.length, slug);
     }
-    options.onPart?.(++done, folders.length, slug);
+  };
+  await Promise.all(Array.from({ length: 3 }, worker));
+  for (const r of results) {
+    if (r.page) pages.push(r.page);
+    if (r.failure) failures.push(r.failure);
   }
   return { catalog: assembleCatalog(settings, pages, failures, options.version), settingsErrors: errors, cacheHits: hits };
 }

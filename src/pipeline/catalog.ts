@@ -13,14 +13,14 @@ import { ieee370Quality } from '../network/ieee370.js';
 import { passivity, reciprocity } from '../network/quality.js';
 import { CLASS_HEADLINE } from '../plots/defaults.js';
 import { buildPlots } from '../plots/model.js';
-import { renderPlot } from '../plots/render.js';
+import { renderPlotAnywhere } from '../plots/pool.js';
 import { DASHES, PALETTE } from '../plots/spec.js';
 import { formatSpecError, type SpecError } from '../spec/diagnostics.js';
 import type { NormalizedPart } from '../spec/normalize.js';
 import { cautionsFor } from '../site/cautions.js';
 import { renderMarkdown } from '../site/markdown.js';
 import { loadSettings, type SiteSettings } from '../site/settings.js';
-import { evaluatePartFile, type LoadedUnit } from './part.js';
+import { evaluatePartFile, type LoadedUnit, type StageTimes } from './part.js';
 
 export interface Cell {
   readonly text: string;
@@ -165,7 +165,7 @@ function headline(part: NormalizedPart, results: readonly CheckResult[]): Headli
 function quality(part: NormalizedPart, u: LoadedUnit): QualityRow {
   const net = u.network;
   const p = passivity(net);
-  const q = ieee370Quality(net);
+  const q = ieee370Quality(net, p.perFrequency);
   const metric = (m: { score: number; grade: string } | null) => (m ? `${trimNumber(m.score, 4)} (${m.grade})` : 'n/a');
   const active = PASSIVE_CLASSES_EXCEPT.has(part.partClass);
   const ferrite = NON_RECIPROCAL.has(part.partClass) && !active;
@@ -215,26 +215,26 @@ export interface PartBuild {
 }
 
 /** Builds one part's page model; errors come back as a failure, never thrown. */
-export async function buildPartPage(partFile: string, contentRoot: string, slug: string, settings: SiteSettings): Promise<PartBuild> {
+export async function buildPartPage(partFile: string, contentRoot: string, slug: string, settings: SiteSettings, times?: StageTimes): Promise<PartBuild> {
   const display = relative(process.cwd(), partFile) || partFile;
-  const outcome = await evaluatePartFile(partFile, contentRoot, display);
+  const outcome = await evaluatePartFile(partFile, contentRoot, display, times);
   if (!outcome.result || !outcome.part) {
     return { page: null, failure: { slug, file: display, messages: outcome.errors.map((e: SpecError) => formatSpecError(e, e.file === display ? outcome.source : undefined)) } };
   }
   const part = outcome.part;
   const result = outcome.result;
+  const tp = performance.now();
   const models = buildPlots(part, outcome.units);
-  const plots: PlotBlock[] = [];
-  for (const m of models) {
-    plots.push({
-      id: m.id,
-      title: m.title,
-      svg: await renderPlot(m, `${slug}-`),
-      legend: m.items.map((label, i) => ({ label, color: PALETTE[i % PALETTE.length], dash: DASHES[i % DASHES.length].join(' ') })),
-      unitCount: m.unitCount,
-      hasLimits: m.regions.length > 0,
-    });
-  }
+  const svgs = await Promise.all(models.map((m) => renderPlotAnywhere(m, `${slug}-`)));
+  const plots: PlotBlock[] = models.map((m, i) => ({
+    id: m.id,
+    title: m.title,
+    svg: svgs[i],
+    legend: m.items.map((label, j) => ({ label, color: PALETTE[j % PALETTE.length], dash: DASHES[j % DASHES.length].join(' ') })),
+    unitCount: m.unitCount,
+    hasLimits: m.regions.length > 0,
+  }));
+  if (times) times.plots += performance.now() - tp;
   const lo = Math.max(...outcome.units.map((u) => u.network.freqHz[0]));
   const hi = Math.min(...outcome.units.map((u) => u.network.freqHz[u.network.freqHz.length - 1]));
   const page: PartPage = {

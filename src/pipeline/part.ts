@@ -31,6 +31,16 @@ export interface PartOutcome {
 
 let compiler: Promise<ExpressionCompiler> | null = null;
 
+/** Milliseconds spent per stage, summed over parts (for benchmarks and summaries). */
+export interface StageTimes {
+  read: number;
+  figures: number;
+  plots: number;
+  pages: number;
+}
+
+export const newStageTimes = (): StageTimes => ({ read: 0, figures: 0, plots: 0, pages: 0 });
+
 /** True when `target` lies inside `root` (both resolved, links followed where they exist). */
 export function isInside(root: string, target: string): boolean {
   const real = (p: string) => {
@@ -50,7 +60,8 @@ export function isInside(root: string, target: string): boolean {
  *   the part file's own folder for a standalone `figures`)
  * @param displayName  how messages name the part file
  */
-export async function evaluatePartFile(partFile: string, contentRoot: string, displayName = partFile): Promise<PartOutcome> {
+export async function evaluatePartFile(partFile: string, contentRoot: string, displayName = partFile, times?: StageTimes): Promise<PartOutcome> {
+  const t0 = performance.now();
   let source: string;
   try {
     source = readFileSync(partFile, 'utf8');
@@ -90,6 +101,11 @@ export async function evaluatePartFile(partFile: string, contentRoot: string, di
     units.push({ unit: m.label, serial: m.unit, file: m.file, network: r.value.network, conditions: m.conditions, fileAt: m.fileAt, data: r.value, path, bytes: r.bytes, sha256: r.sha256 });
   }
   if (errors.length) return { source, part, units, result: null, errors };
+  const t1 = performance.now();
   const evaluated = evaluatePart(part, units);
+  if (times) {
+    times.read += t1 - t0;
+    times.figures += performance.now() - t1;
+  }
   return { source, part, units, result: evaluated.value, errors: evaluated.errors };
 }

@@ -202,19 +202,29 @@ function buildOne(part: NormalizedPart, units: readonly UnitData[], def: PlotDef
   const env: BandPoint[] = [];
   items.forEach((item, i) => {
     for (const s of perItem[i]) {
-      s.freq.forEach((f, k) => {
-        if (f < x0 || f > x1 || !Number.isFinite(s.values[k])) return;
-        traces.push({ x: f / fu.scale, y: s.values[k] * disp.scale, item: item.label, trace: `${s.unit} ${item.label}` });
-      });
+      for (const [f, v] of thin(s.freq, s.values, x0, x1)) traces.push({ x: f / fu.scale, y: v * disp.scale, item: item.label, trace: `${s.unit} ${item.label}` });
     }
     const ref = perItem[i][0];
+    const mf: number[] = [], mv: number[] = [], lo: number[] = [], hi: number[] = [];
     ref.freq.forEach((f) => {
       if (f < x0 || f > x1) return;
       const vals = perItem[i].map((s) => valueAt(s.freq, s.values, f)).filter(Number.isFinite);
       if (!vals.length) return;
-      med.push({ x: f / fu.scale, y: median(vals) * disp.scale, item: item.label, trace: `median ${item.label}` });
-      if (units.length > 1) env.push({ x: f / fu.scale, lo: Math.min(...vals) * disp.scale, hi: Math.max(...vals) * disp.scale, item: item.label });
+      mf.push(f);
+      mv.push(median(vals));
+      lo.push(Math.min(...vals));
+      hi.push(Math.max(...vals));
     });
+    for (const [f, v] of thin(mf, mv, x0, x1)) med.push({ x: f / fu.scale, y: v * disp.scale, item: item.label, trace: `median ${item.label}` });
+    if (units.length > 1) {
+      // the spread keeps each column's lowest low and highest high, each at its own point, the other edge interpolated there
+      const fa = Float64Array.from(mf), la = Float64Array.from(lo), ha = Float64Array.from(hi);
+      const points = new Map<number, BandPoint>();
+      for (const [f] of [...thin(fa, la, x0, x1), ...thin(fa, ha, x0, x1)]) {
+        points.set(f, { x: f / fu.scale, lo: valueAt(fa, la, f) * disp.scale, hi: valueAt(fa, ha, f) * disp.scale, item: item.label });
+      }
+      env.push(...[...points.values()].sort((a, b) => a.x - b.x));
+    }
   });
   // limit values, for the domain and the regions
   const limitYs: number[] = [];
@@ -269,6 +279,46 @@ function buildOne(part: NormalizedPart, units: readonly UnitData[], def: PlotDef
     unitCount: units.length,
   };
 }
+
+/**
+ * Plot points of one trace, thinned for drawing: the x range is cut into
+ * `buckets` columns and each keeps its lowest and highest point (in x order),
+ * plus the first and last point of the range, so every peak and notch
+ * survives while a 1,601-point trace draws as at most 2·buckets + 2 points.
+ * The figures themselves use every point.
+ */
+export function thin(xs: ArrayLike<number>, ys: ArrayLike<number>, x0: number, x1: number, buckets = PLOT_BUCKETS): Array<[number, number]> {
+  const keep: number[] = [];
+  const width = (x1 - x0) / buckets || 1;
+  let b = -1, lo = -1, hi = -1, first = -1, last = -1;
+  const flush = () => {
+    if (lo < 0) return;
+    if (lo === hi) keep.push(lo);
+    else keep.push(Math.min(lo, hi), Math.max(lo, hi));
+  };
+  for (let k = 0; k < xs.length; k++) {
+    const x = xs[k], y = ys[k];
+    if (x < x0 || x > x1 || !Number.isFinite(y)) continue;
+    if (first < 0) first = k;
+    last = k;
+    const nb = Math.min(buckets - 1, Math.floor((x - x0) / width));
+    if (nb !== b) {
+      flush();
+      b = nb;
+      lo = hi = k;
+    } else {
+      if (y < ys[lo]) lo = k;
+      if (y > ys[hi]) hi = k;
+    }
+  }
+  flush();
+  if (first >= 0 && keep[0] !== first) keep.unshift(first);
+  if (last >= 0 && keep[keep.length - 1] !== last) keep.push(last);
+  return keep.map((k) => [xs[k], ys[k]]);
+}
+
+/** Columns of a plot's x range for thinning: about two per pixel of its 620 px width would be more than the eye sees. */
+export const PLOT_BUCKETS = 200;
 
 function trim(v: number): string {
   return String(Number(v.toPrecision(6)));

@@ -2,15 +2,12 @@
  * Vega-Lite → SVG at build time, in Node, with no canvas and no script in the
  * page: compile the spec to Vega, run a headless View, and write SVG with a
  * <title> and <desc> for screen readers. Compiled Vega specs are cached by
- * the shape of the spec (everything but the data), so charts alike in form
- * compile once.
+ * shape (see below), so charts alike in form compile once.
  */
 import * as vega from 'vega';
 import { compile } from 'vega-lite';
 import type { PlotModel } from './model.js';
-import { plotData, plotSpec } from './spec.js';
-
-const compiled = new Map<string, vega.Spec>();
+import { plotData, shapeOf, specOf, textsOf, type PlotShape } from './spec.js';
 
 /** Vega-Lite's notes about resolved conflicts are not for datasheet readers; errors still throw. */
 const silent = {
@@ -23,14 +20,41 @@ const silent = {
   },
 } as never;
 
-function vegaSpecFor(vl: Record<string, unknown>): vega.Spec {
-  const key = JSON.stringify(vl);
-  let spec = compiled.get(key);
-  if (!spec) {
-    spec = compile(vl as never, { logger: silent }).spec as vega.Spec;
-    compiled.set(key, spec);
+/*
+ * Compiling Vega-Lite costs more than drawing a chart, so each shape compiles
+ * once, with sentinel texts and domains that are then replaced in the compiled
+ * Vega JSON for every plot (strings as JSON strings, numbers by their text).
+ */
+const SENTINEL = { x0: 9.87654321e-13, x1: 1.23456789e13, y0: -8.7654321e-13, y1: 2.3456789e13 };
+const compiled = new Map<string, string>();
+
+function compiledTemplate(shape: PlotShape): string {
+  const key = JSON.stringify(shape);
+  let text = compiled.get(key);
+  if (!text) {
+    const items = Array.from({ length: shape.itemCount }, (_, i) => `@@item${i}@@`);
+    const vl = specOf(shape, { title: '@@title@@', xTitle: '@@xTitle@@', yTitle: '@@yTitle@@', xDomain: [SENTINEL.x0, SENTINEL.x1], yDomain: [SENTINEL.y0, SENTINEL.y1], items });
+    text = JSON.stringify(compile(vl as never, { logger: silent }).spec);
+    compiled.set(key, text);
   }
-  return spec;
+  return text;
+}
+
+function vegaSpecFor(m: PlotModel): vega.Spec {
+  const t = textsOf(m);
+  const str = (v: string) => JSON.stringify(v).slice(1, -1);
+  let text = compiledTemplate(shapeOf(m))
+    .replaceAll('@@title@@', str(t.title))
+    .replaceAll('@@xTitle@@', str(t.xTitle))
+    .replaceAll('@@yTitle@@', str(t.yTitle))
+    .replaceAll(String(SENTINEL.x0), String(t.xDomain[0]))
+    .replaceAll(String(SENTINEL.x1), String(t.xDomain[1]))
+    .replaceAll(String(SENTINEL.y0), String(t.yDomain[0]))
+    .replaceAll(String(SENTINEL.y1), String(t.yDomain[1]));
+  t.items.forEach((item, i) => {
+    text = text.replaceAll(`@@item${i}@@`, str(item));
+  });
+  return JSON.parse(text) as vega.Spec;
 }
 
 function escapeXml(s: string): string {
@@ -39,7 +63,7 @@ function escapeXml(s: string): string {
 
 /** Renders one plot to an SVG string with role="img", <title> and <desc>. */
 export async function renderPlot(m: PlotModel, idPrefix = ''): Promise<string> {
-  const view = new vega.View(vega.parse(vegaSpecFor(plotSpec(m))), { renderer: 'none' });
+  const view = new vega.View(vega.parse(vegaSpecFor(m)), { renderer: 'none' });
   for (const [name, rows] of Object.entries(plotData(m))) view.data(name, rows as object[]);
   await view.runAsync();
   const svg = await view.toSVG();

@@ -15,36 +15,67 @@ export const ENVELOPE_OPACITY = 0.18;
 export const WIDTH = 620;
 export const HEIGHT = 250;
 
+/** What varies between plots of one shape: texts and domains. */
+export interface PlotTexts {
+  readonly title: string;
+  readonly xTitle: string;
+  readonly yTitle: string;
+  readonly xDomain: readonly [number, number];
+  readonly yDomain: readonly [number, number];
+  readonly items: readonly string[];
+}
+
+/** The form of a plot, apart from its texts, domains and data: plots of one shape compile once. */
+export interface PlotShape {
+  readonly downward: boolean;
+  readonly itemCount: number;
+  readonly several: boolean;
+}
+
+export const shapeOf = (m: PlotModel): PlotShape => ({ downward: m.downward, itemCount: m.items.length, several: m.unitCount > 1 });
+export const textsOf = (m: PlotModel): PlotTexts => ({ title: m.title, xTitle: m.xTitle, yTitle: m.yTitle, xDomain: m.xDomain, yDomain: m.yDomain, items: m.items });
+
+/** The Vega-Lite spec of a plot. */
 export function plotSpec(m: PlotModel): Record<string, unknown> {
+  return specOf(shapeOf(m), textsOf(m));
+}
+
+export function specOf(shape: PlotShape, t: PlotTexts): Record<string, unknown> {
+  const m = { ...t, downward: shape.downward, unitCount: shape.several ? 2 : 1 };
   const x = { field: 'x', type: 'quantitative', title: m.xTitle, scale: { domain: [...m.xDomain], nice: false, zero: false } };
   const y = { field: 'y', type: 'quantitative', title: m.yTitle, scale: { domain: [...m.yDomain], nice: false, zero: false, reverse: m.downward } };
   const color = { field: 'item', type: 'nominal', title: 'Parameter', scale: { domain: [...m.items], range: PALETTE.slice(0, Math.max(1, m.items.length)) } };
   const dash = { field: 'item', type: 'nominal', legend: null, scale: { domain: [...m.items], range: DASHES.slice(0, Math.max(1, m.items.length)) } };
   const layers: Record<string, unknown>[] = [
     {
+      name: 'limit_regions',
       data: { name: 'regions' },
       mark: { type: 'rect', color: LIMIT_FILL, opacity: 0.16, clip: true },
       encoding: { x: { ...x, field: 'x0' }, x2: { field: 'x1' }, y: { ...y, field: 'y0' }, y2: { field: 'y1' } },
     },
   ];
-  if (m.unitCount > 1) {
+  if (shape.several) {
     layers.push({
+      name: 'unit_spread',
       data: { name: 'envelope' },
       mark: { type: 'area', opacity: ENVELOPE_OPACITY, clip: true },
       encoding: { x, y: { ...y, field: 'lo' }, y2: { field: 'hi' }, color: { ...color, legend: null }, detail: { field: 'item' } },
     });
     layers.push({
+      name: 'unit_traces',
       data: { name: 'traces' },
       mark: { type: 'line', strokeWidth: 0.8, opacity: 0.55, clip: true },
       encoding: { x, y, color: { ...color, legend: null }, detail: { field: 'trace' } },
     });
   }
   layers.push({
+    name: 'median_traces',
     data: { name: 'median' },
-    mark: { type: 'line', strokeWidth: m.unitCount > 1 ? 2.2 : 1.6, clip: true },
+    mark: { type: 'line', strokeWidth: shape.several ? 2.2 : 1.6, clip: true },
     encoding: { x, y, color: { ...color, legend: null }, strokeDash: dash },
   });
   layers.push({
+    name: 'limit_edges',
     data: { name: 'edges' },
     mark: { type: 'rule', color: LIMIT_FILL, strokeWidth: 1.4, clip: true },
     encoding: { x: { ...x, field: 'x0' }, x2: { field: 'x1' }, y: { ...y, field: 'y' } },

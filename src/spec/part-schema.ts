@@ -41,6 +41,16 @@ const limitFields: Record<string, Field> = {
   tolerance: { t: 'quantity', description: 'half the width of the allowed window around nominal (nominal defaults to the figure\'s own: 0 for balances)' },
 };
 
+function plotFields(): Record<string, Field> {
+  return {
+    figure: { ...str('the figure drawn (a trace figure: a value at every point)'), required: true },
+    on: { t: 'oneOrMany', description: 'the S-parameters drawn (default: those of the figure\'s limits)', items: str('an S-parameter name') },
+    band: str('draw only this band (default: the whole measured range)'),
+    range: str('all: the whole measured range; limits: around the bands of the figure\'s limits', { enum: ['all', 'limits'] }),
+    title: str('the plot\'s title'),
+  };
+}
+
 export const PART_SCHEMA: Schema = {
   t: 'object',
   description: 'One component in a scatterbook catalog: what it is, its measured units, its bands and the limits its datasheet promises.',
@@ -104,6 +114,8 @@ export const PART_SCHEMA: Schema = {
         },
       },
     },
+    plots: { t: 'array', items: { t: 'object', fields: plotFields(), description: 'a plot' }, description: 'the plots of the datasheet, replacing the class defaults' },
+    'extra-plots': { t: 'array', items: { t: 'object', fields: plotFields(), description: 'a plot' }, description: 'plots added after the class defaults' },
     ratings: {
       t: 'array',
       description: 'absolute maximum ratings',

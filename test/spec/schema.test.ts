@@ -37,7 +37,7 @@ describe('the part file schema', () => {
     const broken = [
       base.replace(/^limits:/m, 'limts:'),
       base.replace(/^class: \w+/m, 'class: filtre'),
-      base.replace(/from: ([\d.]+) GHz/, 'from: $1'),
+      base.replace(/from: ([\d.]+) [GM]Hz/, 'from: $1'),
       base.replace(/^part: .*$/m, ''),
     ];
     for (const text of broken) {

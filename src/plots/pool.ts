@@ -1,0 +1,87 @@
+/**
+ * Plot rendering off the main thread: a small pool of worker threads (one per
+ * core, at most four) that turn PlotModels into SVG, so the figures of the
+ * next part are computed while the plots of this one are drawn. Used when
+ * running compiled (dist/); elsewhere (tests through tsx) plots render in
+ * this thread. The result is the same SVG either way.
+ */
+import { availableParallelism } from 'node:os';
+import { Worker } from 'node:worker_threads';
+import type { PlotModel } from './model.js';
+import { renderPlot } from './render.js';
+
+interface Job {
+  readonly resolve: (svg: string) => void;
+  readonly reject: (e: Error) => void;
+}
+
+class Pool {
+  private readonly workers: Worker[] = [];
+  private readonly idle: Worker[] = [];
+  private readonly queue: Array<{ model: PlotModel; prefix: string; job: Job }> = [];
+  private readonly running = new Map<Worker, Job>();
+
+  constructor(size: number, url: URL) {
+    for (let i = 0; i < size; i++) {
+      const w = new Worker(url);
+      w.unref();
+      w.on('message', (msg: { svg?: string; error?: string }) => {
+        const job = this.running.get(w);
+        this.running.delete(w);
+        if (job) {
+          if (msg.error !== undefined) job.reject(new Error(msg.error));
+          else job.resolve(msg.svg as string);
+        }
+        this.idle.push(w);
+        this.next();
+      });
+      w.on('error', (e) => {
+        const job = this.running.get(w);
+        this.running.delete(w);
+        job?.reject(e);
+      });
+      this.workers.push(w);
+      this.idle.push(w);
+    }
+  }
+
+  render(model: PlotModel, prefix: string): Promise<string> {
+    return new Promise((resolve, reject) => {
+      this.queue.push({ model, prefix, job: { resolve, reject } });
+      this.next();
+    });
+  }
+
+  private next(): void {
+    while (this.idle.length && this.queue.length) {
+      const w = this.idle.pop() as Worker;
+      const { model, prefix, job } = this.queue.shift() as (typeof this.queue)[number];
+      this.running.set(w, job);
+      w.postMessage({ model, prefix });
+    }
+  }
+
+  async close(): Promise<void> {
+    await Promise.all(this.workers.map((w) => w.terminate()));
+  }
+}
+
+let pool: Pool | null | undefined;
+
+function getPool(): Pool | null {
+  if (pool !== undefined) return pool;
+  const compiled = import.meta.url.endsWith('.js');
+  const size = Math.min(4, Math.max(1, availableParallelism()));
+  pool = compiled && size > 1 ? new Pool(size, new URL('./render-worker.js', import.meta.url)) : null;
+  return pool;
+}
+
+export function renderPlotAnywhere(model: PlotModel, prefix: string): Promise<string> {
+  const p = getPool();
+  return p ? p.render(model, prefix) : renderPlot(model, prefix);
+}
+
+export async function closePlotPool(): Promise<void> {
+  if (pool) await pool.close();
+  pool = undefined;
+}

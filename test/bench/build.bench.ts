@@ -1,0 +1,96 @@
+/**
+ * Benchmark: the HTML site of a synthetic catalog (npm run bench:build).
+ * 200 parts cycling through a 2-port filter, a 3-port divider and a 4-port
+ * coupler, 3 units each, 1,601 points per file, made by the demo models. It
+ * prints the time per stage (read, figures, plots, pages), the total, the
+ * peak memory, and the time of a rebuild after one part's YAML changed
+ * (served from the content-hash cache for the other 199). Not a test. It runs
+ * the compiled code in dist/, as `scatterbook build` does (plots then render
+ * in worker threads).
+ */
+import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { addMeasurementNoise } from '../../src/demo/measurement.js';
+import { bandpass } from '../../src/demo/models/bandpass.js';
+import { coupledLine, wilkinson } from '../../src/demo/models/lines.js';
+import { seeded } from '../../src/demo/random.js';
+import { grid } from '../../src/demo/catalog.js';
+import { buildCatalog } from '../../dist/pipeline/build-catalog.js';
+import { newStageTimes } from '../../dist/pipeline/part.js';
+import { writeSite } from '../../dist/site/eleventy-run.js';
+import { closePlotPool } from '../../dist/plots/pool.js';
+import { writeTouchstone } from '../../src/touchstone/write.js';
+
+const PARTS = Number(process.env.BENCH_PARTS ?? 200);
+const root = join(tmpdir(), `scatterbook-bench-catalog-${PARTS}`);
+const content = join(root, 'content');
+
+const KINDS = [
+  {
+    ports: 2,
+    make: (s: number) => bandpass({ order: 5, rippleDb: 0.05, lowHz: 2.39e9, highHz: 2.51e9, q: 900, tolerance: 0.0015 }, grid(1e9, 4e9, 1601), seeded(s)),
+    yaml: 'class: filter\nbands:\n  pass: {from: 2.40 GHz, to: 2.50 GHz}\n  stop: {from: 1.0 GHz, to: 2.2 GHz}\nlimits:\n  - {figure: insertion-loss, on: S21, band: pass, max: 2.5 dB}\n  - {figure: return-loss, on: [S11, S22], band: pass, min: 15 dB}\n  - {figure: rejection, on: S21, band: stop, min: 40 dB}\n  - {figure: group-delay, on: S21, band: pass, max: 20 ns}\n',
+  },
+  {
+    ports: 3,
+    make: (s: number) => wilkinson(2e9, 3.4, { a: 0.25, b: 0.03 }, { impedance: 0.01, length: 0.004, resistor: 0.01 }, grid(1e9, 3e9, 1601), seeded(s)),
+    yaml: 'class: divider\nbands:\n  op: {from: 1.7 GHz, to: 2.3 GHz}\nlimits:\n  - {figure: insertion-loss, on: [S21, S31], band: op, max: 3.5 dB}\n  - {figure: amplitude-balance, on: [S21, S31], band: op, tolerance: 0.3 dB}\n  - {figure: phase-balance, on: [S21, S31], band: op, tolerance: 3 deg}\n  - {figure: isolation, on: S32, band: op, min: 18 dB}\n',
+  },
+  {
+    ports: 4,
+    make: (s: number) => coupledLine(2e9, 20, { erEven: 6.5, erOdd: 6.35 }, { a: 0.3, b: 0.03 }, { impedance: 0.005, length: 0.003 }, grid(1e9, 3e9, 1601), seeded(s)),
+    yaml: 'class: coupler\nbands:\n  op: {from: 1.5 GHz, to: 2.5 GHz}\nlimits:\n  - {figure: coupling, on: S31, band: op, nominal: 20 dB, tolerance: 1.5 dB}\n  - {figure: directivity, on: [S31, S41], band: op, min: 15 dB}\n  - {figure: mainline-loss, on: S21, band: op, max: 0.3 dB}\n  - {figure: return-loss, on: [S11, S22], band: op, min: 20 dB}\n',
+  },
+];
+
+function generate(): void {
+  if (existsSync(join(content, '.complete'))) return;
+  rmSync(root, { recursive: true, force: true });
+  for (let i = 0; i < PARTS; i++) {
+    const kind = KINDS[i % KINDS.length];
+    const slug = `bench-${String(i).padStart(3, '0')}`;
+    mkdirSync(join(content, 'parts', slug, 'data'), { recursive: true });
+    const ms: string[] = [];
+    for (let u = 0; u < 3; u++) {
+      const net = addMeasurementNoise(kind.make(i * 10 + u), -85, seeded(i * 100 + u));
+      const file = `data/u${u}.s${kind.ports}p`;
+      writeFileSync(join(content, 'parts', slug, file), writeTouchstone(net, { format: 'DB', significantDigits: 8 }));
+      ms.push(`  - {unit: U${u}, file: ${file}}`);
+    }
+    writeFileSync(join(content, 'parts', slug, 'part.yaml'), `part: BENCH-${i}\ntitle: Synthetic part ${i}\nrevision: A\nmeasurements:\n${ms.join('\n')}\n${kind.yaml}`);
+  }
+  writeFileSync(join(content, '.complete'), '');
+}
+
+const mb = (kb: number) => `${(kb / 1024).toFixed(0)} MB`;
+const s = (ms: number) => `${(ms / 1000).toFixed(2)} s`;
+
+console.log(`scatterbook site benchmark: ${PARTS} parts × 3 units × 1,601 points (2–4 ports), node ${process.version}`);
+const tg = performance.now();
+generate();
+console.log(`catalog ready in ${s(performance.now() - tg)} (${root})`);
+const cache = join(root, 'cache');
+rmSync(cache, { recursive: true, force: true });
+
+async function build(label: string): Promise<void> {
+  const times = newStageTimes();
+  const t0 = performance.now();
+  const b = await buildCatalog(content, { version: 'bench', cacheDir: cache, times });
+  const t1 = performance.now();
+  await writeSite(content, b.catalog, join(root, 'site'));
+  times.pages = performance.now() - t1;
+  const total = performance.now() - t0;
+  if (b.catalog.failures.length) throw new Error(b.catalog.failures[0].messages.join('\n'));
+  console.log(
+    `${label}: ${s(total)} total — read ${s(times.read)}, figures ${s(times.figures)}, plots ${s(times.plots)}, pages ${s(times.pages)}; ` +
+      `${b.cacheHits} parts from the cache; peak RSS so far ${mb(process.resourceUsage().maxRSS)}`,
+  );
+}
+
+await build('full build');
+const yaml = join(content, 'parts', 'bench-007', 'part.yaml');
+writeFileSync(yaml, `${readFileSync(yaml, 'utf8')}# edited at ${Date.now()}\n`);
+await build('rebuild after one part changed');
+await closePlotPool();
+console.log('(stage times add up over parts built three at a time, with plots drawn in worker threads, so they sum to more than the total)');

@@ -1,0 +1,105 @@
+/**
+ * `scatterbook build` through the binary: a broken part stops the build with
+ * every error named and the old site untouched; --keep-going publishes the
+ * good parts and lists the others; spec text is escaped; templates can be
+ * overridden from the content folder's _includes/.
+ */
+import { spawnSync } from 'node:child_process';
+import { cpSync, existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { beforeAll, describe, expect, it } from 'vitest';
+
+const ROOT = join(import.meta.dirname, '../..');
+const BIN = join(ROOT, 'bin/scatterbook.js');
+let dir: string;
+
+function run(args: string[]) {
+  const r = spawnSync(process.execPath, [BIN, ...args], { cwd: dir, encoding: 'utf8' });
+  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
+}
+
+/** A content folder with two good demo parts. */
+function content(name: string): string {
+  const c = join(dir, name);
+  mkdirSync(join(c, 'parts'), { recursive: true });
+  for (const slug of ['vt-att-10', 'vt-cbl-150']) cpSync(join(ROOT, 'content/parts', slug), join(c, 'parts', slug), { recursive: true });
+  return c;
+}
+
+beforeAll(() => {
+  dir = mkdtempSync(join(tmpdir(), 'scatterbook-build-'));
+});
+
+describe('scatterbook build', () => {
+  it('builds the site: an index and a page per part, and says where to open it', () => {
+    content('ok');
+    const r = run(['build', 'ok', '--out', 'site-ok', '--no-cache']);
+    expect(r.status).toBe(0);
+    expect(r.stdout).toMatch(/^built 2 parts into site-ok\/ in [\d.]+ s; open site-ok\/index\.html\n$/);
+    expect(r.stderr).toBe('');
+    expect(readdirSync(join(dir, 'site-ok/parts')).sort()).toEqual(['vt-att-10', 'vt-cbl-150']);
+    expect(existsSync(join(dir, 'site-ok/assets/scatterbook.css'))).toBe(true);
+  });
+
+  it('a broken part: every error with file and line, exit 1, and the previous site left as it was', () => {
+    const c = content('broken');
+    expect(run(['build', 'broken', '--out', 'site-b', '--no-cache']).status).toBe(0);
+    const before = readFileSync(join(dir, 'site-b/index.html'), 'utf8');
+    const yaml = join(c, 'parts/vt-cbl-150/part.yaml');
+    writeFileSync(yaml, readFileSync(yaml, 'utf8').replace('band: full, max: 5.2 dB', 'band: ful, max: 5.2').replace('class: cable', 'class: cabel'));
+    const r = run(['build', 'broken', '--out', 'site-b', '--no-cache']);
+    expect(r.status).toBe(1);
+    expect(r.stderr).toContain('broken/parts/vt-cbl-150/part.yaml:5:8: error: class "cabel" is not one of');
+    expect(r.stderr).toMatch(/broken\/parts\/vt-cbl-150\/part\.yaml:\d+:\d+: error: band "ful" is not defined; did you mean "full"\?/);
+    expect(r.stderr).toContain('nothing was written (site-b is unchanged); --keep-going publishes the parts that build');
+    expect(readFileSync(join(dir, 'site-b/index.html'), 'utf8')).toBe(before);
+    expect(readdirSync(dir).filter((n) => n.includes('building'))).toEqual([]); // no staging folder left behind
+  });
+
+  it('--keep-going publishes the good parts and lists the failed ones', () => {
+    const r = run(['build', 'broken', '--out', 'site-k', '--no-cache', '--keep-going']);
+    expect(r.status).toBe(1);
+    expect(r.stdout).toContain('built 1 part, 1 left out with errors');
+    const index = readFileSync(join(dir, 'site-k/index.html'), 'utf8');
+    expect(index).toContain('Parts not published');
+    expect(index).toContain('vt-cbl-150/part.yaml');
+    expect(existsSync(join(dir, 'site-k/parts/vt-att-10/index.html'))).toBe(true);
+    expect(existsSync(join(dir, 'site-k/parts/vt-cbl-150'))).toBe(false);
+  });
+
+  it('escapes everything taken from a spec: <script> and "><img onerror=…> in title and notes render as text', () => {
+    const c = content('evil');
+    const yaml = join(c, 'parts/vt-att-10/part.yaml');
+    const evil = '<script>alert(1)</script> "><img src=x onerror=alert(2)>';
+    writeFileSync(yaml, readFileSync(yaml, 'utf8').replace(/^title: .*$/m, `title: '${evil}'`).replace(/^description: .*$/m, `description: '${evil}'\nnotes: |\n  Plain **bold** text.\n\n  ${evil}\n\n  [link](javascript:alert(3))`));
+    expect(run(['build', 'evil', '--out', 'site-e', '--no-cache']).status).toBe(0);
+    const page = readFileSync(join(dir, 'site-e/parts/vt-att-10/index.html'), 'utf8');
+    expect(page).not.toContain('<script>alert(1)</script>');
+    expect(page).not.toContain('<img src=x');
+    expect(page).not.toMatch(/href="javascript:/i); // markdown-it refuses the link and leaves it as text
+    expect(page).toContain('&lt;script&gt;alert(1)&lt;/script&gt;');
+    expect(page).toContain('<strong>bold</strong>'); // Markdown still renders
+    const index = readFileSync(join(dir, 'site-e/index.html'), 'utf8');
+    expect(index).not.toContain('<img src=x');
+  });
+
+  it('a vendor overrides a template by a file of the same name in the content folder\'s _includes/', () => {
+    const c = content('custom');
+    mkdirSync(join(c, '_includes'));
+    writeFileSync(join(c, '_includes/ports.njk'), '<section class="ports"><h2 id="ports-title">Connections</h2><p class="vendor-ports">{{ part.ports.length }} connections</p></section>\n');
+    expect(run(['build', 'custom', '--out', 'site-c', '--no-cache']).status).toBe(0);
+    const page = readFileSync(join(dir, 'site-c/parts/vt-att-10/index.html'), 'utf8');
+    expect(page).toContain('<p class="vendor-ports">2 connections</p>');
+    expect(page).toContain('id="compliance-title"'); // the other templates are still ours
+  });
+
+  it('an empty content folder is an error, and bad usage exits 2', () => {
+    mkdirSync(join(dir, 'empty'));
+    const r = run(['build', 'empty', '--out', 'site-x']);
+    expect(r.status).toBe(1);
+    expect(r.stderr).toContain('no parts found: expected empty/parts/<slug>/part.yaml');
+    expect(run(['build', 'a', 'b']).status).toBe(2);
+    expect(run(['build', '--outt', 'x']).stderr).toContain('did you mean --out?');
+  });
+});

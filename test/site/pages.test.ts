@@ -1,0 +1,131 @@
+/**
+ * The built demo site in a real browser (Debian's Chromium through
+ * puppeteer-core) over a real local HTTP server: no console errors, no failed
+ * requests, every plot has its traces and limit regions and is labelled for
+ * screen readers, and every number of each compliance table equals what
+ * `scatterbook figures --json` gives for that part.
+ */
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, readdirSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import type { Browser } from 'puppeteer-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { haveBrowser, launch } from '../support/browser.js';
+import { serveFolder, type StaticServer } from '../support/static-server.js';
+
+const ROOT = join(import.meta.dirname, '../..');
+const BIN = join(ROOT, 'bin/scatterbook.js');
+const slugs = readdirSync(join(ROOT, 'content/parts')).filter((d) => !d.startsWith('.')).sort();
+let out: string;
+let server: StaticServer;
+let browser: Browser;
+
+beforeAll(async () => {
+  out = join(mkdtempSync(join(tmpdir(), 'scatterbook-site-')), 'site');
+  const r = spawnSync(process.execPath, [BIN, 'build', 'content', '--out', out, '--no-cache', '--no-pdf'], { cwd: ROOT, encoding: 'utf8' });
+  if (r.status !== 0) throw new Error(`build failed: ${r.stderr}`);
+  server = await serveFolder(out);
+  if (haveBrowser) browser = await launch();
+}, 180_000);
+
+afterAll(async () => {
+  await browser?.close();
+  await server?.close();
+});
+
+interface PageReport {
+  errors: string[];
+  failed: string[];
+}
+
+async function open(path: string): Promise<{ page: import('puppeteer-core').Page; report: PageReport }> {
+  const page = await browser.newPage();
+  const report: PageReport = { errors: [], failed: [] };
+  page.on('console', (m) => m.type() === 'error' && report.errors.push(m.text()));
+  page.on('pageerror', (e) => report.errors.push(String(e)));
+  page.on('requestfailed', (r) => report.failed.push(r.url()));
+  page.on('response', (r) => r.status() >= 400 && report.failed.push(`${r.status()} ${r.url()}`));
+  await page.goto(server.url + path, { waitUntil: 'networkidle0' });
+  return { page, report };
+}
+
+describe.skipIf(!haveBrowser)('the demo site in Chromium', () => {
+  it('the catalog index lists every part, grouped by class, with a link that works', async () => {
+    const { page, report } = await open('index.html');
+    const rows = await page.$$eval('.catalog-table tbody tr th a', (as) => as.map((a) => [a.textContent, a.getAttribute('href')]));
+    expect(rows.length).toBe(slugs.length);
+    const groups = await page.$$eval('.class-group h2', (hs) => hs.map((h) => h.textContent));
+    expect(groups.length).toBeGreaterThanOrEqual(8);
+    await page.click('.catalog-table tbody tr th a');
+    await page.waitForSelector('#part-number');
+    expect(report.errors).toEqual([]);
+    expect(report.failed).toEqual([]);
+    await page.close();
+  });
+
+  for (const slug of slugs) {
+    it(`${slug}: every section, plots with traces and limit regions, table numbers equal figures --json`, async () => {
+      const { page, report } = await open(`parts/${slug}/index.html`);
+      for (const id of ['part-number', 'compliance-title', 'plots-title', 'ports-title', 'measurements-title', 'quality-title', 'ratings-title']) {
+        expect(await page.$(`#${id}`), `${slug}: section #${id}`).not.toBeNull();
+      }
+      const plots = await page.$$eval('figure.plot > svg', (svgs) =>
+        svgs.map((s) => ({
+          title: s.querySelector('title')?.textContent ?? '',
+          desc: s.querySelector('desc')?.textContent ?? '',
+          role: s.getAttribute('role'),
+          median: s.querySelectorAll('.median_traces_marks path').length,
+          regions: s.querySelectorAll('.limit_regions_marks path').length,
+        })),
+      );
+      expect(plots.length, `${slug}: plots`).toBeGreaterThanOrEqual(2);
+      for (const p of plots) {
+        expect(p.role).toBe('img');
+        expect(p.title.length).toBeGreaterThan(3);
+        expect(p.desc).toContain('measured unit');
+        expect(p.median, `${slug} ${p.title}: traces`).toBeGreaterThan(0);
+      }
+      expect(plots.some((p) => p.regions > 0), `${slug}: some plot shows limit regions`).toBe(true);
+
+      // the compliance numbers against the CLI's JSON for the same part
+      const cli = spawnSync(process.execPath, [BIN, 'figures', join(ROOT, 'content/parts', slug, 'part.yaml'), '--json'], { encoding: 'utf8' });
+      const json = JSON.parse(cli.stdout) as { results: Array<{ typical: number; worst: number; worstAtHz: number | null; margin: number | null; pass: boolean | null; units: Array<{ unit: string; worst: number; atHz: number | null; margin: number | null; pass: boolean | null }> }> };
+      const table = await page.$$eval('tbody.check', (bodies) =>
+        bodies.map((b) => {
+          const num = (row: Element, key: string) => {
+            const c = row.querySelector(`[data-key="${key}"]`);
+            const v = c?.getAttribute('data-value');
+            return v === null || v === undefined ? null : Number(v);
+          };
+          const summary = b.querySelector('tr.summary') as Element;
+          return {
+            typical: num(summary, 'typical'),
+            worst: num(summary, 'worst'),
+            at: num(summary, 'at'),
+            margin: num(summary, 'margin'),
+            verdict: summary.querySelector('.verdict')?.textContent,
+            units: Array.from(b.querySelectorAll('tr.unit')).map((u) => ({ unit: u.getAttribute('data-unit'), worst: num(u, 'worst'), at: num(u, 'at'), margin: num(u, 'margin'), verdict: u.querySelector('.verdict')?.textContent })),
+          };
+        }),
+      );
+      expect(table.length).toBe(json.results.length);
+      const same = (a: number | null, b: number | null) => (b === null || !Number.isFinite(b) ? a === null : a === b);
+      json.results.forEach((r, i) => {
+        const row = table[i];
+        expect(same(row.typical, r.typical), `${slug} row ${i} typical`).toBe(true);
+        expect(same(row.worst, r.worst), `${slug} row ${i} worst`).toBe(true);
+        expect(same(row.at, r.worstAtHz), `${slug} row ${i} at`).toBe(true);
+        expect(same(row.margin, r.margin), `${slug} row ${i} margin`).toBe(true);
+        expect(row.verdict).toBe(r.pass === null ? 'report' : r.pass ? 'PASS' : 'FAIL');
+        r.units.forEach((u, j) => {
+          expect(row.units[j].unit).toBe(u.unit);
+          expect(same(row.units[j].worst, u.worst) && same(row.units[j].at, u.atHz) && same(row.units[j].margin, u.margin), `${slug} row ${i} unit ${u.unit}`).toBe(true);
+        });
+      });
+      expect(report.errors).toEqual([]);
+      expect(report.failed).toEqual([]);
+      await page.close();
+    });
+  }
+});
