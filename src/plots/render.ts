@@ -57,6 +57,22 @@ function vegaSpecFor(m: PlotModel): vega.Spec {
   return JSON.parse(text) as vega.Spec;
 }
 
+/**
+ * Vega numbers its clip paths with a counter per process, so two plots on one
+ * page (drawn in different threads) could share an id. Each plot's ids are
+ * renumbered from 1 under its own prefix, which also makes the SVG the same
+ * whichever thread drew it.
+ */
+function localIds(svg: string, prefix: string): string {
+  const seen = new Map<string, string>();
+  const local = (n: string) => {
+    let v = seen.get(n);
+    if (!v) seen.set(n, (v = `${prefix}-clip${seen.size + 1}`));
+    return v;
+  };
+  return svg.replace(/id="clip(\d+)"/g, (_, n: string) => `id="${local(n)}"`).replace(/url\(#clip(\d+)\)/g, (_, n: string) => `url(#${local(n)})`);
+}
+
 function escapeXml(s: string): string {
   return s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
 }
@@ -69,7 +85,7 @@ export async function renderPlot(m: PlotModel, idPrefix = ''): Promise<string> {
   const svg = await view.toSVG();
   view.finalize();
   const id = `${idPrefix}${m.id}`;
-  return svg.replace(
+  return localIds(svg, id).replace(
     /^<svg /,
     `<svg role="img" aria-labelledby="${id}-title ${id}-desc" data-plot="${escapeXml(m.id)}" `,
   ).replace(/(<svg[^>]*>)/, `$1<title id="${id}-title">${escapeXml(m.title)}</title><desc id="${id}-desc">${escapeXml(m.description)}</desc>`);
