@@ -11,6 +11,9 @@ import { buildCatalog } from '../pipeline/build-catalog.js';
 import { closePlotPool } from '../plots/pool.js';
 import { writeSite } from '../site/eleventy-run.js';
 import { PACKAGE_ROOT } from '../site/plugin.js';
+import { findBrowser, HOW_TO_GET_PDFS, type FoundBrowser } from '../pdf/discover.js';
+import { printAll } from '../pdf/print.js';
+import { printJobs, withPdfLinks } from '../pdf/jobs.js';
 import { parseArgs, UsageError, type FlagSpec } from './args.js';
 import { EXIT, type Command } from './command.js';
 import { progress } from './progress.js';
@@ -20,6 +23,8 @@ export const BUILD_FLAGS: FlagSpec[] = [
   { name: 'out', value: true, help: 'the output folder (default _site)' },
   { name: 'keep-going', help: 'publish the parts that build, and list the ones that do not' },
   { name: 'no-pdf', help: 'do not print PDF datasheets' },
+  { name: 'pdf', help: 'PDFs are required: fail (exit 1) when no browser can print them' },
+  { name: 'browser', value: true, help: 'the Chromium-family browser that prints PDFs (or set SCATTERBOOK_BROWSER)' },
   { name: 'no-cache', help: 'recompute every part (by default unchanged parts come from the cache)' },
   { name: 'cache', value: true, help: 'the cache folder (default .scatterbook-cache beside the output)' },
 ];
@@ -33,6 +38,9 @@ export interface BuildOptions {
   readonly out: string;
   readonly keepGoing: boolean;
   readonly cacheDir: string | null;
+  /** off: no PDFs; auto: PDFs when a browser is found; required: no browser is an error. */
+  readonly pdf: 'off' | 'auto' | 'required';
+  readonly browser: string | undefined;
 }
 
 export function buildOptions(argv: readonly string[], t: Terminal, flags: readonly FlagSpec[] = BUILD_FLAGS): BuildOptions & { flags: Map<string, string | true> } {
@@ -42,7 +50,9 @@ export function buildOptions(argv: readonly string[], t: Terminal, flags: readon
   const out = resolve(t.cwd, (args.flags.get('out') as string | undefined) ?? '_site');
   const cacheFlag = args.flags.get('cache');
   const cacheDir = args.flags.has('no-cache') ? null : resolve(t.cwd, typeof cacheFlag === 'string' ? cacheFlag : join(out, '..', '.scatterbook-cache'));
-  return { content, out, keepGoing: args.flags.has('keep-going'), cacheDir, flags: args.flags };
+  if (args.flags.has('pdf') && args.flags.has('no-pdf')) throw new UsageError('--pdf and --no-pdf contradict each other');
+  const pdf = args.flags.has('no-pdf') ? 'off' : args.flags.has('pdf') ? 'required' : 'auto';
+  return { content, out, keepGoing: args.flags.has('keep-going'), cacheDir, pdf, browser: args.flags.get('browser') as string | undefined, flags: args.flags };
 }
 
 export async function runBuild(o: BuildOptions, t: Terminal): Promise<{ code: 0 | 1; parts: number; failed: number; ms: number }> {
@@ -65,10 +75,35 @@ export async function runBuild(o: BuildOptions, t: Terminal): Promise<{ code: 0 
     t.stderr.write(`${p.red('error:')} ${why}; nothing was written (${rel(o.out)} is unchanged)${catalog.failures.length && !o.keepGoing ? '; --keep-going publishes the parts that build' : ''}\n`);
     return { code: 1, parts: catalog.parts.length, failed: catalog.failures.length, ms: performance.now() - started };
   }
-  bar.update(`pages for ${catalog.parts.length} parts`);
+  // PDFs need a browser; look for it before the pages are written, since they link their PDFs
+  let found: FoundBrowser | null = null;
+  if (o.pdf !== 'off') {
+    const f = await findBrowser(o.browser, t.env as NodeJS.ProcessEnv);
+    if ('missing' in f) {
+      if (o.pdf === 'required') {
+        t.stderr.write(`${p.red('error:')} PDFs are required (--pdf) but ${f.missing}; ${HOW_TO_GET_PDFS}; nothing was written (${rel(o.out)} is unchanged)\n`);
+        return { code: 1, parts: catalog.parts.length, failed: catalog.failures.length, ms: performance.now() - started };
+      }
+      t.stderr.write(`${p.yellow('note:')} ${f.missing}, so the site is built without PDFs; ${HOW_TO_GET_PDFS}\n`);
+    } else found = f;
+  }
+  const site = found ? withPdfLinks(catalog) : catalog;
+  bar.update(`pages for ${site.parts.length} parts`);
   const staging = stagingFolder(o.out);
+  let pdfNote = '';
   try {
-    await writeSite(o.content, catalog, staging);
+    await writeSite(o.content, site, staging);
+    if (found) {
+      const report = await printAll(found, staging, printJobs(site, staging, packageVersion()), {
+        paper: site.site.paper,
+        publicBase: site.site.baseUrl,
+        onDone: (done, total) => bar.update(`PDFs ${done}/${total}`),
+      });
+      bar.done();
+      for (const r of report.refused) t.stderr.write(`${p.yellow('warning:')} ${r.page} asked for ${r.url}, which was refused: pages may load only files of the site\n`);
+      const rate = report.printed / Math.max(report.printMs / 1000, 1e-3);
+      pdfNote = `, ${report.printed} PDF${report.printed === 1 ? '' : 's'} (${rate.toFixed(1)} per second after the browser started)`;
+    }
     swapInto(staging, o.out);
   } catch (e) {
     discard(staging);
@@ -79,7 +114,7 @@ export async function runBuild(o: BuildOptions, t: Terminal): Promise<{ code: 0 
   const ms = performance.now() - started;
   const failed = catalog.failures.length;
   t.stdout.write(
-    `built ${catalog.parts.length} part${catalog.parts.length === 1 ? '' : 's'}${failed ? `, ${failed} left out with errors` : ''}${built.cacheHits ? ` (${built.cacheHits} unchanged, from the cache)` : ''} into ${rel(o.out)}/ in ${(ms / 1000).toFixed(1)} s; open ${rel(join(o.out, 'index.html'))}\n`,
+    `built ${catalog.parts.length} part${catalog.parts.length === 1 ? '' : 's'}${pdfNote}${failed ? `, ${failed} left out with errors` : ''}${built.cacheHits ? ` (${built.cacheHits} unchanged, from the cache)` : ''} into ${rel(o.out)}/ in ${(ms / 1000).toFixed(1)} s; open ${rel(join(o.out, 'index.html'))}\n`,
   );
   return { code: failed ? 1 : 0, parts: catalog.parts.length, failed, ms };
 }

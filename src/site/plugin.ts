@@ -6,6 +6,7 @@
  * template by writing one of the same name), and copies the assets.
  */
 import { existsSync } from 'node:fs';
+import { createRequire } from 'node:module';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { UserConfig } from '@11ty/eleventy';
@@ -17,6 +18,14 @@ export const PACKAGE_ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..
 export const PAGES_DIR = join(PACKAGE_ROOT, 'src/site/pages');
 export const INCLUDES_DIR = join(PACKAGE_ROOT, 'src/site/_includes');
 export const ASSETS_DIR = join(PACKAGE_ROOT, 'src/site/assets');
+
+/** The typeface travels with the project (the npm package @fontsource/inter, SIL Open Font License), so pages and PDFs look alike everywhere. */
+export const FONT_WEIGHTS = [400, 600, 700] as const;
+
+export function fontFiles(): Array<{ from: string; to: string }> {
+  const dir = join(dirname(createRequire(import.meta.url).resolve('@fontsource/inter/package.json')), 'files');
+  return FONT_WEIGHTS.map((w) => ({ from: join(dir, `inter-latin-${w}-normal.woff2`), to: `assets/fonts/inter-latin-${w}-normal.woff2` }));
+}
 
 export interface SitePluginOptions {
   /** The content folder (parts/, site.yaml, _includes/, assets/). */
@@ -52,6 +61,7 @@ export function scatterbookSite(config: UserConfig, options: SitePluginOptions):
   config.setLibrary('njk', env);
   config.addGlobalData('catalog', typeof options.catalog === 'function' ? options.catalog : () => options.catalog);
   config.addPassthroughCopy({ [ASSETS_DIR]: 'assets' });
+  for (const f of fontFiles()) config.addPassthroughCopy({ [f.from]: f.to });
   const vendorAssets = join(options.content, 'assets');
   if (existsSync(vendorAssets)) config.addPassthroughCopy({ [vendorAssets]: 'assets' });
   config.addWatchTarget(options.content);

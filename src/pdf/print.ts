@@ -1,0 +1,156 @@
+/**
+ * Printing datasheet pages to PDF in a real Chromium-family browser, headless
+ * (the only browser code in scatterbook). One browser for the whole build, a
+ * small pool of pages, every PDF written atomically. Pages may load only
+ * files inside the build folder: every other request (the network, other
+ * files) is refused and reported, and the page still prints.
+ */
+import { mkdtempSync, realpathSync, rmSync } from 'node:fs';
+import { availableParallelism, tmpdir } from 'node:os';
+import { join, relative, isAbsolute } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import puppeteer, { type Browser, type Page } from 'puppeteer-core';
+import { writeFileAtomic } from '../io/atomic.js';
+import type { FoundBrowser } from './discover.js';
+import { setPdfMetadata, type PdfMetadata } from './metadata.js';
+
+export interface PrintJob {
+  /** The HTML page inside the build folder. */
+  readonly html: string;
+  /** Where its PDF goes. */
+  readonly pdf: string;
+  readonly metadata: PdfMetadata;
+  readonly header: { readonly left: string; readonly right: string };
+  readonly footer: string;
+}
+
+export interface PrintOptions {
+  readonly paper: 'A4' | 'Letter';
+  /**
+   * Where the site is published (site.yaml base-url). Links inside the PDF
+   * point there; when it is not an absolute http(s) address, links between
+   * pages are dropped from the PDF (a local file path would only leak the
+   * build machine's folders and change with every build).
+   */
+  readonly publicBase: string;
+  /** Pages printed at once (default: from the core count, 2 to 4). */
+  readonly pages?: number;
+  readonly onDone?: (done: number, total: number) => void;
+}
+
+export interface PrintReport {
+  readonly printed: number;
+  /** Requests refused, with the page that made them. */
+  readonly refused: ReadonlyArray<{ readonly page: string; readonly url: string }>;
+  readonly browserVersion: string;
+  readonly launchMs: number;
+  readonly printMs: number;
+}
+
+/** The flags that keep a headless browser offline and quiet, with a fresh profile. */
+export function launchArgs(profile: string): string[] {
+  const args = ['--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic', '--disable-default-apps', '--mute-audio', `--user-data-dir=${profile}`];
+  // the sandbox cannot start as root; everywhere else it stays on
+  if (process.getuid?.() === 0) args.push('--no-sandbox');
+  return args;
+}
+
+function escapeHtml(s: string): string {
+  return s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
+}
+
+/** Running header and footer; Chromium renders these apart from the page, so they carry their own explicit font size. */
+function templates(job: PrintJob): { headerTemplate: string; footerTemplate: string } {
+  const box = 'font-family: Inter, Helvetica, Arial, sans-serif; font-size: 8px; color: #4a4f57; width: 100%; padding: 0 15mm; display: flex; justify-content: space-between;';
+  return {
+    headerTemplate: `<div style="${box}"><span>${escapeHtml(job.header.left)}</span><span>${escapeHtml(job.header.right)}</span></div>`,
+    footerTemplate: `<div style="${box}"><span>${escapeHtml(job.footer)}</span><span>page <span class="pageNumber"></span> of <span class="totalPages"></span></span></div>`,
+  };
+}
+
+function insideFolder(root: string, url: string): boolean {
+  if (url.startsWith('data:') || url === 'about:blank') return true;
+  if (!url.startsWith('file:')) return false;
+  let path: string;
+  try {
+    path = realpathSync(fileURLToPath(url.split('#')[0].split('?')[0]));
+  } catch {
+    return false; // a file that does not exist is refused like any other
+  }
+  const rel = relative(root, path);
+  return rel === '' || (!rel.startsWith('..') && !isAbsolute(rel));
+}
+
+/** Page-side: file: links become links to the published site, or plain text when it has no absolute address. */
+function linkRewrite(rootUrl: string, publicBase: string): string {
+  const absolute = publicBase.startsWith('http://') || publicBase.startsWith('https://');
+  const base = publicBase.endsWith('/') ? publicBase : `${publicBase}/`;
+  return `(() => {
+    const root = ${JSON.stringify(rootUrl)}, base = ${JSON.stringify(base)}, absolute = ${absolute};
+    for (const a of Array.from(document.querySelectorAll('a[href]'))) {
+      const url = a.href;
+      if (!url.startsWith('file:')) continue;
+      if (absolute && url.startsWith(root)) a.setAttribute('href', base + url.slice(root.length));
+      else a.removeAttribute('href');
+    }
+  })()`;
+}
+
+async function printOne(page: Page, job: PrintJob, options: PrintOptions, rootUrl: string): Promise<void> {
+  await page.goto(pathToFileURL(job.html).href, { waitUntil: 'load', timeout: 60_000 });
+  await page.evaluate(linkRewrite(rootUrl, options.publicBase));
+  // wait for the fonts (a function body as text: this module compiles without the DOM library)
+  await page.evaluate('document.fonts.ready.then(() => undefined)');
+  const bytes = await page.pdf({
+    format: options.paper,
+    printBackground: true,
+    displayHeaderFooter: true,
+    ...templates(job),
+    margin: { top: '18mm', bottom: '16mm', left: '15mm', right: '15mm' },
+    outline: true,
+    tagged: true,
+    timeout: 60_000,
+  });
+  writeFileAtomic(job.pdf, await setPdfMetadata(bytes, job.metadata));
+}
+
+export async function printAll(found: FoundBrowser, root: string, jobs: readonly PrintJob[], options: PrintOptions): Promise<PrintReport> {
+  const realRoot = realpathSync(root);
+  const rootUrl = pathToFileURL(root).href.replace(/\/?$/, '/');
+  const profile = mkdtempSync(join(tmpdir(), 'scatterbook-browser-'));
+  const t0 = performance.now();
+  let browser: Browser | null = null;
+  const refused: Array<{ page: string; url: string }> = [];
+  try {
+    browser = await puppeteer.launch({ executablePath: found.path, headless: true, args: [...found.args, ...launchArgs(profile)] });
+    const version = await browser.version();
+    const t1 = performance.now();
+    const size = Math.max(1, Math.min(jobs.length, options.pages ?? Math.min(4, Math.max(2, availableParallelism()))));
+    let next = 0, done = 0;
+    const worker = async () => {
+      const page = await (browser as Browser).newPage();
+      await page.setRequestInterception(true);
+      let current = '';
+      page.on('request', (req) => {
+        const url = req.url();
+        if (insideFolder(realRoot, url)) void req.continue();
+        else {
+          refused.push({ page: current, url });
+          void req.abort('blockedbyclient');
+        }
+      });
+      while (next < jobs.length) {
+        const job = jobs[next++];
+        current = relative(root, job.html);
+        await printOne(page, job, options, rootUrl);
+        options.onDone?.(++done, jobs.length);
+      }
+      await page.close();
+    };
+    await Promise.all(Array.from({ length: size }, worker));
+    return { printed: done, refused, browserVersion: version, launchMs: t1 - t0, printMs: performance.now() - t1 };
+  } finally {
+    await browser?.close();
+    rmSync(profile, { recursive: true, force: true });
+  }
+}

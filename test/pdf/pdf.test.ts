@@ -1,0 +1,133 @@
+/**
+ * PDF datasheets printed by a real Chromium (Debian's, installed by .ci/run),
+ * checked with poppler's pdfinfo, pdftotext and pdftoppm: page count, metadata
+ * from the part (title, author, keywords, dates), the part number on every
+ * page, every compliance value present, no text outside the page, a first
+ * page that is not blank; requests outside the build folder refused; and what
+ * happens without a browser.
+ */
+import { execFileSync, spawnSync } from 'node:child_process';
+import { cpSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { formatValue } from '../../src/format/values.js';
+import { haveBrowser } from '../support/browser.js';
+
+const ROOT = join(import.meta.dirname, '../..');
+const BIN = join(ROOT, 'bin/scatterbook.js');
+const havePoppler = spawnSync('pdfinfo', ['-v']).status === 0;
+if (!havePoppler && process.env.CI) throw new Error('PDF tests need poppler-utils in CI: apt-get install -y poppler-utils');
+const slugs = readdirSync(join(ROOT, 'content/parts')).filter((d) => !d.startsWith('.')).sort();
+let dir: string;
+let build: { status: number | null; stdout: string; stderr: string };
+
+function run(args: string[], env: Record<string, string | undefined> = {}) {
+  const r = spawnSync(process.execPath, [BIN, ...args], { cwd: dir, encoding: 'utf8', env: { ...process.env, ...env } });
+  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
+}
+
+const info = (pdf: string) =>
+  Object.fromEntries(
+    execFileSync('pdfinfo', ['-isodates', pdf], { encoding: 'utf8' })
+      .split('\n')
+      .filter((l) => l.includes(':'))
+      .map((l) => [l.slice(0, l.indexOf(':')).trim(), l.slice(l.indexOf(':') + 1).trim()]),
+  );
+
+beforeAll(() => {
+  dir = mkdtempSync(join(tmpdir(), 'scatterbook-pdf-'));
+  if (haveBrowser) build = run(['build', join(ROOT, 'content'), '--out', 'site', '--no-cache', '--pdf']);
+}, 300_000);
+
+describe.skipIf(!haveBrowser || !havePoppler)('PDF datasheets', () => {
+  it('the build prints one PDF per part and the pages link them', () => {
+    expect(build.stderr).toBe('');
+    expect(build.status).toBe(0);
+    expect(build.stdout).toMatch(/built 8 parts, 8 PDFs \([\d.]+ per second after the browser started\)/);
+    const index = readFileSync(join(dir, 'site/index.html'), 'utf8');
+    for (const slug of slugs) expect(index).toContain(`href="parts/${slug}/${slug.toUpperCase()}.pdf"`);
+    expect(readFileSync(join(dir, 'site/parts/vt-bpf-2450/index.html'), 'utf8')).toContain('href="../../parts/vt-bpf-2450/VT-BPF-2450.pdf"');
+  });
+
+  for (const slug of slugs) {
+    it(`${slug}: metadata, part number on every page, every compliance value, text inside the page, a first page that is not blank`, () => {
+      const part = slug.toUpperCase();
+      const pdf = join(dir, 'site/parts', slug, `${part}.pdf`);
+      const yaml = readFileSync(join(ROOT, 'content/parts', slug, 'part.yaml'), 'utf8');
+      const title = /^title: (.*)$/m.exec(yaml)?.[1] as string;
+      const date = /^date: (.*)$/m.exec(yaml)?.[1] as string;
+      const meta = info(pdf);
+      expect(meta.Title).toBe(`${part} — ${title}`);
+      expect(meta.Author).toBe('Veltrane Microwave');
+      expect(meta.Keywords).toContain(part);
+      expect(meta.CreationDate).toBe(`${date}T00:00:00Z`); // the part's date, not the clock
+      expect(meta['Page size']).toContain('(A4)');
+      const pages = Number(meta.Pages);
+      expect(pages).toBeGreaterThanOrEqual(2);
+      expect(pages).toBeLessThanOrEqual(12);
+      for (let p = 1; p <= pages; p++) {
+        const text = execFileSync('pdftotext', ['-f', String(p), '-l', String(p), '-layout', pdf, '-'], { encoding: 'utf8' });
+        expect(text, `${part} page ${p}`).toContain(part);
+        expect(text).toContain(`page ${p} of ${pages}`);
+      }
+      // every number of the compliance table, as the table formats it
+      const all = execFileSync('pdftotext', [pdf, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
+      const json = JSON.parse(execFileSync(process.execPath, [BIN, 'figures', join(ROOT, 'content/parts', slug, 'part.yaml'), '--json'], { encoding: 'utf8' }));
+      for (const r of json.results) {
+        for (const v of [r.typical, r.worst, r.margin, ...r.units.flatMap((u: { worst: number; margin: number | null }) => [u.worst, u.margin])]) {
+          if (v === null) continue;
+          expect(all, `${part} ${r.figure}`).toContain(formatValue(v, r.unit));
+        }
+      }
+      // no word outside the page box
+      const bbox = execFileSync('pdftotext', ['-bbox', pdf, '-'], { encoding: 'utf8' });
+      const page = /<page width="([\d.]+)" height="([\d.]+)"/.exec(bbox) as RegExpExecArray;
+      const [w, h] = [Number(page[1]), Number(page[2])];
+      for (const m of bbox.matchAll(/<word xMin="([\d.-]+)" yMin="([\d.-]+)" xMax="([\d.-]+)" yMax="([\d.-]+)">([^<]*)</g)) {
+        const [x0, y0, x1, y1] = [m[1], m[2], m[3], m[4]].map(Number);
+        expect(x0 >= 0 && y0 >= 0 && x1 <= w && y1 <= h, `${part}: "${m[5]}" at ${x0},${y0}–${x1},${y1} leaves the ${w}×${h} page`).toBe(true);
+      }
+      // the first page, rendered, has ink on it
+      const pgm = execFileSync('pdftoppm', ['-gray', '-r', '30', '-f', '1', '-l', '1', pdf]);
+      const header = pgm.subarray(0, 40).toString('latin1');
+      const hm = /^P5\s+(\d+)\s+(\d+)\s+255\s/.exec(header) as RegExpExecArray;
+      const pixels = pgm.subarray(hm[0].length);
+      let ink = 0;
+      for (const px of pixels) if (px < 200) ink++;
+      expect(ink / pixels.length).toBeGreaterThan(0.01);
+    });
+  }
+
+  it('a page asking for the network or a file outside the build folder: refused, reported, and the PDF still prints', () => {
+    const content = join(dir, 'leaky');
+    mkdirSync(join(content, 'parts'), { recursive: true });
+    cpSync(join(ROOT, 'content/parts/vt-att-10'), join(content, 'parts/vt-att-10'), { recursive: true });
+    mkdirSync(join(content, '_includes'));
+    writeFileSync(join(content, '_includes/notes.njk'), '<img src="https://example.invalid/tracker.png" alt=""><link rel="stylesheet" href="file:///etc/hostname"><img src="../../../../secret.png" alt="">\n');
+    const r = run(['build', 'leaky', '--out', 'leaky-site', '--no-cache', '--pdf']);
+    expect(r.status).toBe(0);
+    expect(r.stderr).toContain('parts/vt-att-10/index.html asked for https://example.invalid/tracker.png, which was refused');
+    expect(r.stderr).toContain('asked for file:///etc/hostname, which was refused');
+    expect(r.stderr).toMatch(/asked for file:\/\/\/[^ ]*secret\.png, which was refused/);
+    expect(Number(info(join(dir, 'leaky-site/parts/vt-att-10/VT-ATT-10.pdf')).Pages)).toBeGreaterThanOrEqual(1);
+  });
+});
+
+describe('without a browser', () => {
+  it('the HTML still builds and the build exits 0 with a message saying how to get PDFs; --pdf exits 1', () => {
+    mkdirSync(join(dir, 'nb/parts'), { recursive: true });
+    cpSync(join(ROOT, 'content/parts/vt-att-10'), join(dir, 'nb/parts/vt-att-10'), { recursive: true });
+    const env = { SCATTERBOOK_NO_BROWSER_SEARCH: '1', SCATTERBOOK_BROWSER: undefined };
+    const r = run(['build', 'nb', '--out', 'nb-site', '--no-cache'], env);
+    expect(r.status).toBe(0);
+    expect(r.stderr).toContain('note: no browser given, and SCATTERBOOK_NO_BROWSER_SEARCH forbids looking for one, so the site is built without PDFs; to print PDFs, install Chromium');
+    expect(existsSync(join(dir, 'nb-site/parts/vt-att-10/index.html'))).toBe(true);
+    expect(existsSync(join(dir, 'nb-site/parts/vt-att-10/VT-ATT-10.pdf'))).toBe(false);
+    const strict = run(['build', 'nb', '--out', 'nb-strict', '--no-cache', '--pdf'], env);
+    expect(strict.status).toBe(1);
+    expect(strict.stderr).toContain('error: PDFs are required (--pdf) but no browser given');
+    expect(existsSync(join(dir, 'nb-strict'))).toBe(false);
+    expect(run(['build', 'nb', '--out', 'x', '--browser', '/nonexistent/chrome']).stderr).toContain('--browser /nonexistent/chrome: no such file');
+  });
+});
