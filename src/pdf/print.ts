@@ -143,7 +143,8 @@ export async function printAll(found: FoundBrowser, root: string, jobs: readonly
         const job = jobs[next++];
         current = relative(root, job.html);
         await printOne(page, job, options, rootUrl);
-        options.onDone?.(++done, jobs.length);
+        done++;
+        options.onDone?.(done, jobs.length);
       }
       await page.close();
     };

@@ -76,7 +76,8 @@ export async function buildCatalog(contentRoot: string, options: BuildCatalogOpt
         }
         results[i] = b;
       }
-      options.onPart?.(++done, folders.length, slug);
+      done++;
+      options.onPart?.(done, folders.length, slug);
     }
   };
   await Promise.all(Array.from({ length: 3 }, worker));

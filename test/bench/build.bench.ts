@@ -4,7 +4,8 @@
  * coupler, 3 units each, 1,601 points per file, made by the demo models. It
  * prints the time per stage (read, figures, plots, pages), the total, the
  * peak memory, and the time of a rebuild after one part's YAML changed
- * (served from the content-hash cache for the other 199). Not a test. It runs
+ * (served from the content-hash cache for the other 199), then the PDF
+ * throughput of the same pages in one browser. Not a test. It runs
  * the compiled code in dist/, as `scatterbook build` does (plots then render
  * in worker threads).
  */
@@ -20,6 +21,9 @@ import { buildCatalog } from '../../dist/pipeline/build-catalog.js';
 import { newStageTimes } from '../../dist/pipeline/part.js';
 import { writeSite } from '../../dist/site/eleventy-run.js';
 import { closePlotPool } from '../../dist/plots/pool.js';
+import { findBrowser } from '../../dist/pdf/discover.js';
+import { printAll } from '../../dist/pdf/print.js';
+import { printJobs } from '../../dist/pdf/jobs.js';
 import { writeTouchstone } from '../../src/touchstone/write.js';
 
 const PARTS = Number(process.env.BENCH_PARTS ?? 200);
@@ -93,4 +97,14 @@ const yaml = join(content, 'parts', 'bench-007', 'part.yaml');
 writeFileSync(yaml, `${readFileSync(yaml, 'utf8')}# edited at ${Date.now()}\n`);
 await build('rebuild after one part changed');
 await closePlotPool();
+
+// PDFs: print BENCH_PDFS datasheets (default 100) of the site just built, in one browser
+const found = await findBrowser(undefined);
+if ('missing' in found) console.log(`PDFs: skipped (${found.missing})`);
+else {
+  const b = await buildCatalog(content, { version: 'bench', cacheDir: cache });
+  const jobs = printJobs(b.catalog, join(root, 'site'), 'bench').slice(0, Number(process.env.BENCH_PDFS ?? 100));
+  const r = await printAll(found, join(root, 'site'), jobs, { paper: 'A4', publicBase: '/' });
+  console.log(`PDFs: ${r.printed} datasheets in ${s(r.printMs)} after a ${s(r.launchMs)} launch = ${(r.printed / (r.printMs / 1000)).toFixed(2)} PDFs per second (${r.browserVersion}, ${found.source})`);
+}
 console.log('(stage times add up over parts built three at a time, with plots drawn in worker threads, so they sum to more than the total)');

@@ -34,7 +34,7 @@ beforeAll(() => {
 describe('scatterbook build', () => {
   it('builds the site: an index and a page per part, and says where to open it', () => {
     content('ok');
-    const r = run(['build', 'ok', '--out', 'site-ok', '--no-cache']);
+    const r = run(['build', 'ok', '--out', 'site-ok', '--no-cache', '--no-pdf']);
     expect(r.status).toBe(0);
     expect(r.stdout).toMatch(/^built 2 parts into site-ok\/ in [\d.]+ s; open site-ok\/index\.html\n$/);
     expect(r.stderr).toBe('');
@@ -44,11 +44,11 @@ describe('scatterbook build', () => {
 
   it('a broken part: every error with file and line, exit 1, and the previous site left as it was', () => {
     const c = content('broken');
-    expect(run(['build', 'broken', '--out', 'site-b', '--no-cache']).status).toBe(0);
+    expect(run(['build', 'broken', '--out', 'site-b', '--no-cache', '--no-pdf']).status).toBe(0);
     const before = readFileSync(join(dir, 'site-b/index.html'), 'utf8');
     const yaml = join(c, 'parts/vt-cbl-150/part.yaml');
     writeFileSync(yaml, readFileSync(yaml, 'utf8').replace('band: full, max: 5.2 dB', 'band: ful, max: 5.2').replace('class: cable', 'class: cabel'));
-    const r = run(['build', 'broken', '--out', 'site-b', '--no-cache']);
+    const r = run(['build', 'broken', '--out', 'site-b', '--no-cache', '--no-pdf']);
     expect(r.status).toBe(1);
     expect(r.stderr).toContain('broken/parts/vt-cbl-150/part.yaml:5:8: error: class "cabel" is not one of');
     expect(r.stderr).toMatch(/broken\/parts\/vt-cbl-150\/part\.yaml:\d+:\d+: error: band "ful" is not defined; did you mean "full"\?/);
@@ -58,7 +58,7 @@ describe('scatterbook build', () => {
   });
 
   it('--keep-going publishes the good parts and lists the failed ones', () => {
-    const r = run(['build', 'broken', '--out', 'site-k', '--no-cache', '--keep-going']);
+    const r = run(['build', 'broken', '--out', 'site-k', '--no-cache', '--no-pdf', '--keep-going']);
     expect(r.status).toBe(1);
     expect(r.stdout).toContain('built 1 part, 1 left out with errors');
     const index = readFileSync(join(dir, 'site-k/index.html'), 'utf8');
@@ -73,7 +73,7 @@ describe('scatterbook build', () => {
     const yaml = join(c, 'parts/vt-att-10/part.yaml');
     const evil = '<script>alert(1)</script> "><img src=x onerror=alert(2)>';
     writeFileSync(yaml, readFileSync(yaml, 'utf8').replace(/^title: .*$/m, `title: '${evil}'`).replace(/^description: .*$/m, `description: '${evil}'\nnotes: |\n  Plain **bold** text.\n\n  ${evil}\n\n  [link](javascript:alert(3))`));
-    expect(run(['build', 'evil', '--out', 'site-e', '--no-cache']).status).toBe(0);
+    expect(run(['build', 'evil', '--out', 'site-e', '--no-cache', '--no-pdf']).status).toBe(0);
     const page = readFileSync(join(dir, 'site-e/parts/vt-att-10/index.html'), 'utf8');
     expect(page).not.toContain('<script>alert(1)</script>');
     expect(page).not.toContain('<img src=x');
@@ -88,7 +88,7 @@ describe('scatterbook build', () => {
     const c = content('custom');
     mkdirSync(join(c, '_includes'));
     writeFileSync(join(c, '_includes/ports.njk'), '<section class="ports"><h2 id="ports-title">Connections</h2><p class="vendor-ports">{{ part.ports.length }} connections</p></section>\n');
-    expect(run(['build', 'custom', '--out', 'site-c', '--no-cache']).status).toBe(0);
+    expect(run(['build', 'custom', '--out', 'site-c', '--no-cache', '--no-pdf']).status).toBe(0);
     const page = readFileSync(join(dir, 'site-c/parts/vt-att-10/index.html'), 'utf8');
     expect(page).toContain('<p class="vendor-ports">2 connections</p>');
     expect(page).toContain('id="compliance-title"'); // the other templates are still ours
