@@ -5,7 +5,7 @@
  * points around it (group delay and the like are computed on the measured
  * grid first, then interpolated).
  */
-import { bracket } from '../network/interpolate.js';
+import { interpolateAt } from '../network/interpolate.js';
 
 export interface BandSet {
   readonly freqHz: Float64Array;
@@ -26,13 +26,7 @@ export function bandSet(freqHz: Float64Array, values: Float64Array, fromHz: numb
   const f = new Float64Array(size);
   const v = new Float64Array(size);
   let w = 0;
-  const at = (x: number) => {
-    const i = bracket(freqHz, x);
-    if (freqHz[i] === x) return values[i];
-    if (i + 1 >= n) return values[i];
-    const t = (x - freqHz[i]) / (freqHz[i + 1] - freqHz[i]);
-    return values[i] + t * (values[i + 1] - values[i]);
-  };
+  const at = (x: number) => interpolateAt(freqHz, values, x);
   if (lowEdge) {
     f[w] = fromHz;
     v[w++] = at(fromHz);

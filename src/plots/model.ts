@@ -8,7 +8,8 @@ import type { UnitData } from '../evaluate/evaluate.js';
 import { FIGURES } from '../figures/registry.js';
 import type { FigureContext, FigureDef, Item } from '../figures/types.js';
 import { frequencyUnitFor } from '../format/units.js';
-import { bracket } from '../network/interpolate.js';
+import { interpolateAt as valueAt } from '../network/interpolate.js';
+import { median as medianOf } from '../evaluate/stats.js';
 import type { NormalizedCheck, NormalizedPart } from '../spec/normalize.js';
 import { parameterName, parseParameter, type SParameter } from '../spec/parameter.js';
 import { CLASS_PLOTS, DOWNWARD, type PlotDef } from './defaults.js';
@@ -141,20 +142,6 @@ function rangeFor(def: PlotDef, part: NormalizedPart, matching: readonly Normali
   return [Math.max(lo, from - pad), Math.min(hi, to + pad)];
 }
 
-function valueAt(freq: Float64Array, v: Float64Array, f: number): number {
-  const i = bracket(freq, f);
-  if (freq[i] === f || i + 1 >= freq.length) return v[i];
-  const t = (f - freq[i]) / (freq[i + 1] - freq[i]);
-  return v[i] + t * (v[i + 1] - v[i]);
-}
-
-function median(xs: number[]): number {
-  const s = xs.filter(Number.isFinite).sort((a, b) => a - b);
-  if (!s.length) return NaN;
-  const m = s.length >> 1;
-  return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
-}
-
 export function buildPlots(part: NormalizedPart, units: readonly UnitData[]): PlotModel[] {
   if (!units.length) return [];
   const ports = units[0].network.ports;
@@ -211,7 +198,7 @@ function buildOne(part: NormalizedPart, units: readonly UnitData[], def: PlotDef
       const vals = perItem[i].map((s) => valueAt(s.freq, s.values, f)).filter(Number.isFinite);
       if (!vals.length) return;
       mf.push(f);
-      mv.push(median(vals));
+      mv.push(medianOf(vals));
       lo.push(Math.min(...vals));
       hi.push(Math.max(...vals));
     });
