@@ -121,8 +121,8 @@ export async function runBuild(o: BuildOptions, t: Terminal): Promise<{ code: 0 
 
 export const buildCommand: Command = {
   name: 'build',
-  summary: 'build the datasheet site of a content folder (default content/) into _site/',
-  usage: 'scatterbook build [CONTENT_DIR] [--out DIR] [--keep-going] [--no-pdf] [--no-cache] [--cache DIR]',
+  summary: 'build the datasheet site and PDFs of a content folder (default content/) into _site/',
+  usage: 'scatterbook build [CONTENT_DIR] [--out DIR] [--keep-going] [--no-pdf | --pdf] [--browser PATH] [--no-cache] [--cache DIR]',
   flags: BUILD_FLAGS,
   async run(argv, t) {
     const o = buildOptions(argv, t);
