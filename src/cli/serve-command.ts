@@ -31,7 +31,8 @@ export const serveCommand: Command = {
     process.env.SCATTERBOOK_CONTENT = content;
     process.env.SCATTERBOOK_OUT = out;
     process.env.SCATTERBOOK_CACHE = join(out, '..', '.scatterbook-cache');
-    const elev = new Eleventy(PAGES_DIR, out, { runMode: 'serve', quietMode: true, configPath: join(PACKAGE_ROOT, '.eleventy.js') });
+    // loader: our config is ESM whatever the package.json of the folder serve runs in says
+    const elev = new Eleventy(PAGES_DIR, out, { runMode: 'serve', quietMode: true, loader: 'esm', configPath: join(PACKAGE_ROOT, '.eleventy.js') });
     await elev.init();
     await elev.watch();
     await elev.serve(port);

@@ -6,7 +6,7 @@ import { handOverCatalog, PACKAGE_ROOT, PAGES_DIR } from './plugin.js';
 
 export async function writeSite(content: string, catalog: Catalog, outDir: string): Promise<void> {
   handOverCatalog(content, catalog);
-  const elev = new Eleventy(PAGES_DIR, outDir, { quietMode: true, configPath: join(PACKAGE_ROOT, '.eleventy.js') });
+  const elev = new Eleventy(PAGES_DIR, outDir, { quietMode: true, loader: 'esm', configPath: join(PACKAGE_ROOT, '.eleventy.js') });
   // Eleventy prints a summary line even in quiet mode; scatterbook prints its own. Its errors still throw from write().
   const quiet = { log() {}, info() {}, warn() {}, error() {} };
   (elev as unknown as { logger: { overrideLogger(l: unknown): void } }).logger.overrideLogger(quiet);

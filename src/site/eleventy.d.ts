@@ -13,6 +13,7 @@ declare module '@11ty/eleventy' {
     quietMode?: boolean;
     configPath?: string;
     runMode?: 'build' | 'serve' | 'watch';
+    loader?: 'esm' | 'cjs' | 'auto';
     config?: (config: UserConfig) => void;
     pathPrefix?: string;
   }

@@ -7,7 +7,7 @@
  */
 import { existsSync } from 'node:fs';
 import { createRequire } from 'node:module';
-import { dirname, join, resolve } from 'node:path';
+import { dirname, join, relative, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { UserConfig } from '@11ty/eleventy';
 import nunjucks from 'nunjucks';
@@ -64,5 +64,6 @@ export function scatterbookSite(config: UserConfig, options: SitePluginOptions):
   for (const f of fontFiles()) config.addPassthroughCopy({ [f.from]: f.to });
   const vendorAssets = join(options.content, 'assets');
   if (existsSync(vendorAssets)) config.addPassthroughCopy({ [vendorAssets]: 'assets' });
-  config.addWatchTarget(options.content);
+  // Eleventy reads watch targets relative to the working folder
+  config.addWatchTarget(relative(process.cwd(), options.content) || '.');
 }

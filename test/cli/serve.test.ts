@@ -1,0 +1,60 @@
+/**
+ * `scatterbook serve`: serves the built site on localhost and rebuilds it when
+ * a part file changes (the page served then shows the change).
+ */
+import { spawn, type ChildProcess } from 'node:child_process';
+import { cpSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { createServer } from 'node:net';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+
+const ROOT = join(import.meta.dirname, '../..');
+let child: ChildProcess | null = null;
+
+afterAll(() => {
+  child?.kill('SIGINT'); // serve stops on Ctrl-C
+});
+
+async function freePort(): Promise<number> {
+  return new Promise((ok) => {
+    const s = createServer();
+    s.listen(0, '127.0.0.1', () => {
+      const port = (s.address() as { port: number }).port;
+      s.close(() => ok(port));
+    });
+  });
+}
+
+async function until<T>(what: () => Promise<T | null>, ms: number): Promise<T> {
+  const end = Date.now() + ms;
+  for (;;) {
+    const v = await what().catch(() => null);
+    if (v !== null) return v;
+    if (Date.now() > end) throw new Error('timed out');
+    await new Promise((r) => setTimeout(r, 250));
+  }
+}
+
+describe('scatterbook serve', () => {
+  it('serves the site and rebuilds it when a part file changes', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'scatterbook-serve-'));
+    mkdirSync(join(dir, 'content/parts'), { recursive: true });
+    cpSync(join(ROOT, 'content/parts/vt-att-10'), join(dir, 'content/parts/vt-att-10'), { recursive: true });
+    const port = await freePort();
+    child = spawn(process.execPath, [join(ROOT, 'bin/scatterbook.js'), 'serve', 'content', '--port', String(port), '--out', 'site'], { cwd: dir, stdio: ['ignore', 'pipe', 'pipe'] });
+    const url = `http://localhost:${port}/parts/vt-att-10/index.html`;
+    const first = await until(async () => {
+      const r = await fetch(url);
+      return r.ok ? r.text() : null;
+    }, 60_000);
+    expect(first).toContain('Fixed attenuator, 10 dB');
+    const yaml = join(dir, 'content/parts/vt-att-10/part.yaml');
+    writeFileSync(yaml, readFileSync(yaml, 'utf8').replace('title: Fixed attenuator, 10 dB, DC–18 GHz', 'title: Fixed attenuator, 10 dB, edited while serving'));
+    const second = await until(async () => {
+      const t = await (await fetch(url)).text();
+      return t.includes('edited while serving') ? t : null;
+    }, 60_000);
+    expect(second).toContain('edited while serving');
+  }, 150_000);
+});
