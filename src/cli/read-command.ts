@@ -87,7 +87,7 @@ export function readSummary(name: string, data: TouchstoneData, t: Terminal): st
   } else {
     row('reciprocity', 'does not apply to a 1-port');
   }
-  const q = ieee370Quality(net);
+  const q = ieee370Quality(net, pas.perFrequency); // the singular values once, for both
   const metric = (m: { score: number; grade: string } | null) => (m ? `${trimNumber(m.score, 4)} (${m.grade})` : 'n/a');
   row('IEEE 370', `passivity ${metric(q.passivity)}, reciprocity ${metric(q.reciprocity)}, causality ${metric(q.causality)}`);
   return lines.join('\n') + '\n';

@@ -5,6 +5,7 @@
 import { createHash } from 'node:crypto';
 import { mkdirSync, readFileSync, statSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
+import { parse } from 'yaml';
 import { writeFileAtomic } from '../io/atomic.js';
 import { assembleCatalog, buildPartPage, partFolders, readSettings, type Catalog, type PartFailure, type PartPage } from './catalog.js';
 import type { StageTimes } from './part.js';
@@ -22,21 +23,32 @@ export interface CatalogBuild {
   readonly cacheHits: number;
 }
 
+/** The measurement file paths a part file names (read as YAML; an unreadable file names none). */
+function measurementFiles(yaml: string): string[] {
+  try {
+    const doc = parse(yaml, { version: '1.2' }) as { measurements?: Array<{ file?: unknown }> } | null;
+    return (doc?.measurements ?? []).map((m) => m?.file).filter((f): f is string => typeof f === 'string');
+  } catch {
+    return [];
+  }
+}
+
 /**
  * A part page depends on its YAML, its measurement files, the site settings
  * and the scatterbook version; the key hashes the YAML text and each data
- * file's path, size and modification time.
+ * file's path, size and modification time. (A part with errors is never
+ * cached, so its errors are reported at every build.)
  */
 function cacheKey(partFile: string, settingsText: string, version: string): string {
   const h = createHash('sha256');
   const yaml = readFileSync(partFile, 'utf8');
   h.update(version).update('\0').update(settingsText).update('\0').update(yaml);
-  for (const m of yaml.matchAll(/file:\s*["']?([^,}\s"']+)/g)) {
+  for (const file of measurementFiles(yaml)) {
     try {
-      const st = statSync(resolve(dirname(partFile), m[1]));
-      h.update(`\0${m[1]}:${st.size}:${st.mtimeMs}`);
+      const st = statSync(resolve(dirname(partFile), file));
+      h.update(`\0${file}:${st.size}:${st.mtimeMs}`);
     } catch {
-      h.update(`\0${m[1]}:missing`);
+      h.update(`\0${file}:missing`);
     }
   }
   return h.digest('hex').slice(0, 32);

@@ -94,6 +94,21 @@ describe('scatterbook build', () => {
     expect(page).toContain('id="compliance-title"'); // the other templates are still ours
   });
 
+  it('unchanged parts come from the cache; a changed measurement file or part file is recomputed', () => {
+    const c = content('cached');
+    const args = ['build', 'cached', '--out', 'site-cache', '--no-pdf', '--cache', 'cache-dir'];
+    expect(run(args).stdout).toMatch(/^built 2 parts into/);
+    expect(run(args).stdout).toContain('(2 unchanged, from the cache)');
+    const data = join(c, 'parts/vt-att-10/data/sn2001.s2p');
+    writeFileSync(data, `${readFileSync(data, 'utf8')}! a comment at the end changes size and time\n`);
+    expect(run(args).stdout).toContain('(1 unchanged, from the cache)');
+    const yaml = join(c, 'parts/vt-cbl-150/part.yaml');
+    writeFileSync(yaml, readFileSync(yaml, 'utf8').replace('max: 5.2 dB', 'max: 5.3 dB'));
+    const r = run(args);
+    expect(r.stdout).toContain('(1 unchanged, from the cache)');
+    expect(readFileSync(join(dir, 'site-cache/parts/vt-cbl-150/index.html'), 'utf8')).toContain('≤ 5.30 dB');
+  });
+
   it('an empty content folder is an error, and bad usage exits 2', () => {
     mkdirSync(join(dir, 'empty'));
     const r = run(['build', 'empty', '--out', 'site-x']);
