@@ -19,6 +19,7 @@ import type { Position, SpecError } from '../spec/diagnostics.js';
 import type { Limit, NormalizedCheck, NormalizedPart } from '../spec/normalize.js';
 import { parameterName } from '../spec/parameter.js';
 import { bandSet } from './band.js';
+import { itemOnNetwork } from './mixed.js';
 import { median } from './stats.js';
 
 export interface UnitData {
@@ -110,10 +111,22 @@ export function evaluatePart(part: NormalizedPart, units: readonly UnitData[]): 
     }
   }
   const ports = units.length ? units[0].network.ports : 0;
+  const pairs = part.mixedModePairs;
+  if (pairs && units.length) {
+    const used = pairs.flat();
+    if (2 * pairs.length !== ports || used.some((x) => x > ports)) {
+      fail('port-range', part.mixedModeAt, `mixed-mode pairs ${JSON.stringify(pairs)} must cover the ${ports} ports of the measured files exactly once`);
+    }
+  }
   for (const c of part.checks) {
     for (const item of c.items) {
       for (const p of item.params) {
         const top = Math.max(p.to, p.from);
+        if (p.mode && pairs && top > pairs.length) {
+          fail('port-range', c.onAt, `${parameterName(p)} needs mixed-mode port ${top}, but mixed-mode pairs defines ${pairs.length}`);
+          continue;
+        }
+        if (p.mode) continue;
         if (top > ports) {
           fail('port-range', c.onAt, `${parameterName(p)} needs port ${top}, but the measured files have ${ports} port${ports === 1 ? '' : 's'}${c.figure.operands === 'port-pair' ? ' (set ports: [a, b] for the stability figures)' : ''}`);
         }
@@ -162,7 +175,7 @@ function evaluateCheck(part: NormalizedPart, check: NormalizedCheck, all: readon
     };
     let best: { value: number; atHz: number | null; score: number; on: string } | null = null;
     for (const item of check.items) {
-      const candidate = evaluateItem(check, ctx, item, u, score, problem);
+      const candidate = evaluateItem(check, ctx, item, u, score, problem, part.mixedModePairs);
       if (!best || candidate.score < best.score || (candidate.score === best.score && candidate.atHz !== null && best.atHz !== null && candidate.atHz < best.atHz)) {
         best = candidate;
       }
@@ -200,13 +213,16 @@ function evaluateCheck(part: NormalizedPart, check: NormalizedCheck, all: readon
 
 function evaluateItem(
   check: NormalizedCheck,
-  ctx: FigureContext,
-  item: Item,
+  plainCtx: FigureContext,
+  asWritten: Item,
   u: UnitData,
   score: (v: number) => number,
   problem: (code: SpecError['code'], message: string) => never,
+  pairs: NormalizedPart['mixedModePairs'],
 ): { value: number; atHz: number | null; score: number; on: string } {
   const fig = check.figure;
+  const { network, item } = itemOnNetwork(plainCtx.network, pairs, asWritten);
+  const ctx: FigureContext = network === plainCtx.network ? plainCtx : { ...plainCtx, network };
   const where = `${fig.id} on ${item.label} in unit ${u.unit} (${u.file})`;
   if (fig.shape === 'scalar') {
     let v: number;

@@ -10,6 +10,7 @@ import type { FigureContext, FigureDef, Item } from '../figures/types.js';
 import { frequencyUnitFor } from '../format/units.js';
 import { interpolateAt as valueAt } from '../network/interpolate.js';
 import { median as medianOf } from '../evaluate/stats.js';
+import { itemOnNetwork } from '../evaluate/mixed.js';
 import type { NormalizedCheck, NormalizedPart } from '../spec/normalize.js';
 import { parameterName, parseParameter, type SParameter } from '../spec/parameter.js';
 import { CLASS_PLOTS, DOWNWARD, type PlotDef } from './defaults.js';
@@ -126,7 +127,7 @@ function itemsFor(def: PlotDef, fig: FigureDef, matching: readonly NormalizedChe
     items = fig.operands === 'pair' ? (params.length === 2 ? [{ params, label: params.map(parameterName).join('/') }] : []) : params.map((p) => ({ params: [p], label: parameterName(p) }));
   }
   const unique = new Map(items.map((i) => [i.label, i]));
-  return [...unique.values()].filter((i) => i.params.every((p) => p.to <= ports && p.from <= ports));
+  return [...unique.values()].filter((i) => i.params.every((p) => p.mode !== undefined || (p.to <= ports && p.from <= ports)));
 }
 
 function rangeFor(def: PlotDef, part: NormalizedPart, matching: readonly NormalizedCheck[], lo: number, hi: number): [number, number] | null {
@@ -177,7 +178,8 @@ function buildOne(part: NormalizedPart, units: readonly UnitData[], def: PlotDef
         nominal,
         band: { fromHz: x0, toHz: x1 },
       };
-      return { unit: u.unit, freq: u.network.freqHz, values: (fig.perPoint as NonNullable<FigureDef['perPoint']>)(ctx, item) };
+      const on = itemOnNetwork(u.network, part.mixedModePairs, item);
+      return { unit: u.unit, freq: u.network.freqHz, values: (fig.perPoint as NonNullable<FigureDef['perPoint']>)({ ...ctx, network: on.network }, on.item) };
     }),
   );
   const all: number[] = [];

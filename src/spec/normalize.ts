@@ -75,6 +75,9 @@ export interface NormalizedPart {
   readonly portNames: Readonly<Record<number, string>>;
   readonly ways: number | null;
   readonly phaseSplitDeg: number | null;
+  /** Single-ended port pairs of the mixed-mode ports, or null. */
+  readonly mixedModePairs: ReadonlyArray<readonly [number, number]> | null;
+  readonly mixedModeAt: Position;
   readonly measurements: readonly NormalizedMeasurement[];
   readonly bands: ReadonlyMap<string, NormalizedBand>;
   readonly checks: readonly NormalizedCheck[];
@@ -132,6 +135,12 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
   const split = typeof spec['phase-split'] === 'string' || typeof spec['phase-split'] === 'number' ? parseQuantity(spec['phase-split']) : null;
   const phaseSplitDeg = split && split.ok ? split.value : null;
   const partCtx = { partClass, ways, phaseSplitDeg };
+  const mm = spec['mixed-mode'];
+  const mixedModePairs = isObj(mm) && Array.isArray(mm.pairs) ? (mm.pairs.filter((p) => Array.isArray(p) && p.length === 2) as unknown as Array<[number, number]>) : null;
+  if (mixedModePairs) {
+    const used = mixedModePairs.flat();
+    if (new Set(used).size !== used.length) err('bad-value', 'mixed-mode.pairs', 'a port appears in two mixed-mode pairs; each single-ended port belongs to one pair');
+  }
 
   // measurements: a serial may appear several times under different conditions (temperature corners)
   const measurements: NormalizedMeasurement[] = [];
@@ -248,6 +257,8 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
         break;
       }
     }
+    if (params.some((p) => p.mode) && params.some((p) => !p.mode)) err('bad-parameter', `${path}.on`, `${figure.id} mixes mixed-mode and single-ended parameters; give them in separate limits`);
+    if (params.some((p) => p.mode) && !mixedModePairs) err('bad-parameter', `${path}.on`, `mixed-mode parameters need the part's port pairs: add mixed-mode: {pairs: [[1, 2], [3, 4]]}`);
     if (e.ports !== undefined && figure.operands !== 'port-pair') err('bad-value', `${path}.ports`, `"ports" belongs to the stability figures; ${figure.id} takes "on"`);
     if (e.aperture !== undefined && !figure.accepts?.includes('aperture')) err('bad-value', `${path}.aperture`, `"aperture" belongs to group-delay figures; ${figure.id} has none`);
     if (e.level !== undefined && !figure.accepts?.includes('level')) err('bad-value', `${path}.level`, `"level" belongs to bandwidth and center-frequency; ${figure.id} has none`);
@@ -348,6 +359,8 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
     portNames,
     ways,
     phaseSplitDeg,
+    mixedModePairs,
+    mixedModeAt: at('mixed-mode'),
     measurements,
     bands,
     checks,

@@ -69,6 +69,19 @@ export const PART_SCHEMA: Schema = {
     ports: { t: 'map', keys: 'integer', value: str('the port\'s name'), description: 'port number → name (default "Port n")' },
     ways: { t: 'integer', min: 2, description: 'dividers: the number of outputs N for excess loss (default: ports − 1)' },
     'phase-split': { t: 'quantity', kinds: ['deg'], description: 'hybrids and baluns: the intended phase difference between outputs (default 90 deg for a hybrid, 180 deg for a balun)' },
+    'mixed-mode': {
+      t: 'object',
+      description: 'how single-ended ports pair into mixed-mode ports, for parameters such as Sdd21',
+      fields: {
+        pairs: {
+          t: 'array',
+          minItems: 1,
+          required: true,
+          description: 'for mixed-mode port 1, 2, …: its [positive, negative] single-ended ports, e.g. [[1, 2], [3, 4]]',
+          items: { t: 'array', minItems: 2, maxItems: 2, items: { t: 'integer', min: 1, description: 'a port number' }, description: 'a pair' },
+        },
+      },
+    },
     measurements: {
       t: 'array',
       minItems: 1,

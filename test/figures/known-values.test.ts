@@ -274,3 +274,32 @@ describe('every component class evaluates', () => {
     expect(r[1].pass).toBe(true);
   });
 });
+
+describe('mixed-mode parameters in part files (Bockelman & Eisenstadt 1995; pairs (1,2) in, (3,4) out)', () => {
+  // two coupled-free lines 1→3 and 2→4, the second 10 % stronger: Sdd21 = ½(S31 − S32 − S41 + S42) = t(1 + 0.05),
+  // Scc21 = ½(S31 + S32 + S41 + S42) = t(1 + 0.05), Sdc21 = ½(S31 + S32 − S41 − S42) = −0.05·t
+  const t = 0.8, k = 1.1;
+  const z = cx(0);
+  const net = one([[z, z, cx(t), z], [z, z, z, cx(t * k)], [cx(t), z, z, z], [z, cx(t * k), z, z]]);
+  const yaml = (on: string, extra = 'mixed-mode: {pairs: [[1, 2], [3, 4]]}\n') =>
+    partYaml({ cls: 'generic', units: ['U1'], bands: band, extra, limits: `  - {figure: insertion-loss, on: ${on}, band: b, max: 3 dB}` });
+
+  it('Sdd21 and Scc21: the differential and common transmission', () => {
+    const dd = first(yaml('Sdd21'), { U1: net });
+    expectClose(dd[0].worst, -20 * Math.log10(t * (1 + (k - 1) / 2)), 1e-12, 'Sdd21 loss');
+    expect(dd[0].on).toEqual(['Sdd21']);
+    const cc = first(yaml('Scc21'), { U1: net });
+    expectClose(cc[0].worst, -20 * Math.log10(t * (1 + (k - 1) / 2)), 1e-12, 'Scc21 loss');
+  });
+
+  it('Sdc21: mode conversion from the imbalance', () => {
+    const dc = first(yaml('Sdc21'), { U1: net });
+    expectClose(dc[0].worst, -20 * Math.log10((t * (k - 1)) / 2), 1e-12, 'Sdc21 loss');
+  });
+
+  it('without the part\'s port pairs, a mixed-mode parameter is an error at its position', () => {
+    const r = evaluateYaml(yaml('Sdd21', ''), { U1: net });
+    expect(r.errors[0]).toMatchObject({ code: 'bad-parameter' });
+    expect(r.errors[0].message).toContain('add mixed-mode: {pairs: [[1, 2], [3, 4]]}');
+  });
+});
