@@ -5,6 +5,7 @@
  * files inside the build folder: every other request (the network, other
  * files) is refused and reported, and the page still prints.
  */
+import { escapeMarkup } from '../format/escape.js';
 import { mkdtempSync, realpathSync, rmSync } from 'node:fs';
 import { availableParallelism, tmpdir } from 'node:os';
 import { join, relative, isAbsolute } from 'node:path';
@@ -55,16 +56,12 @@ export function launchArgs(profile: string): string[] {
   return args;
 }
 
-function escapeHtml(s: string): string {
-  return s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
-}
-
 /** Running header and footer; Chromium renders these apart from the page, so they carry their own explicit font size. */
 function templates(job: PrintJob): { headerTemplate: string; footerTemplate: string } {
   const box = 'font-family: Inter, Helvetica, Arial, sans-serif; font-size: 8px; color: #4a4f57; width: 100%; padding: 0 15mm; display: flex; justify-content: space-between;';
   return {
-    headerTemplate: `<div style="${box}"><span>${escapeHtml(job.header.left)}</span><span>${escapeHtml(job.header.right)}</span></div>`,
-    footerTemplate: `<div style="${box}"><span>${escapeHtml(job.footer)}</span><span>page <span class="pageNumber"></span> of <span class="totalPages"></span></span></div>`,
+    headerTemplate: `<div style="${box}"><span>${escapeMarkup(job.header.left)}</span><span>${escapeMarkup(job.header.right)}</span></div>`,
+    footerTemplate: `<div style="${box}"><span>${escapeMarkup(job.footer)}</span><span>page <span class="pageNumber"></span> of <span class="totalPages"></span></span></div>`,
   };
 }
 

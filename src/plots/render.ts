@@ -4,6 +4,7 @@
  * <title> and <desc> for screen readers. Compiled Vega specs are cached by
  * shape (see below), so charts alike in form compile once.
  */
+import { escapeMarkup } from '../format/escape.js';
 import * as vega from 'vega';
 import { compile } from 'vega-lite';
 import type { PlotModel } from './model.js';
@@ -73,10 +74,6 @@ function localIds(svg: string, prefix: string): string {
   return svg.replace(/id="clip(\d+)"/g, (_, n: string) => `id="${local(n)}"`).replace(/url\(#clip(\d+)\)/g, (_, n: string) => `url(#${local(n)})`);
 }
 
-function escapeXml(s: string): string {
-  return s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
-}
-
 /** Renders one plot to an SVG string with role="img", <title> and <desc>. */
 export async function renderPlot(m: PlotModel, idPrefix = ''): Promise<string> {
   const view = new vega.View(vega.parse(vegaSpecFor(m)), { renderer: 'none' });
@@ -87,6 +84,6 @@ export async function renderPlot(m: PlotModel, idPrefix = ''): Promise<string> {
   const id = `${idPrefix}${m.id}`;
   return localIds(svg, id).replace(
     /^<svg /,
-    `<svg role="img" aria-labelledby="${id}-title ${id}-desc" data-plot="${escapeXml(m.id)}" `,
-  ).replace(/(<svg[^>]*>)/, `$1<title id="${id}-title">${escapeXml(m.title)}</title><desc id="${id}-desc">${escapeXml(m.description)}</desc>`);
+    `<svg role="img" aria-labelledby="${id}-title ${id}-desc" data-plot="${escapeMarkup(m.id)}" `,
+  ).replace(/(<svg[^>]*>)/, `$1<title id="${id}-title">${escapeMarkup(m.title)}</title><desc id="${id}-desc">${escapeMarkup(m.description)}</desc>`);
 }
