@@ -55,17 +55,11 @@ function cacheKey(partFile: string, settingsText: string, version: string): stri
 }
 
 export async function buildCatalog(contentRoot: string, options: BuildCatalogOptions): Promise<CatalogBuild> {
-  const { settings, errors } = readSettings(contentRoot);
+  const { settings, errors, text: settingsText } = readSettings(contentRoot);
   const folders = partFolders(contentRoot);
   const pages: PartPage[] = [];
   const failures: PartFailure[] = [];
   let hits = 0;
-  let settingsText = '';
-  try {
-    settingsText = readFileSync(join(contentRoot, 'site.yaml'), 'utf8');
-  } catch {
-    settingsText = '';
-  }
   // parts build a few at a time, so that plots drawn in worker threads overlap the next part's figures;
   // results keep the folders' order
   const results: Array<{ page: PartPage | null; failure: PartFailure | null }> = new Array(folders.length);

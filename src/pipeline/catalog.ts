@@ -278,11 +278,12 @@ export function partFolders(contentRoot: string): Array<{ slug: string; file: st
     .map((slug) => ({ slug, file: join(dir, slug, 'part.yaml') }));
 }
 
-export function readSettings(contentRoot: string): { settings: SiteSettings; errors: string[] } {
+/** content/site.yaml, parsed; `text` is '' when there is none (it also keys the cache). */
+export function readSettings(contentRoot: string): { settings: SiteSettings; errors: string[]; text: string } {
   const file = join(contentRoot, 'site.yaml');
   const text = existsSync(file) ? readFileSync(file, 'utf8') : null;
   const r = loadSettings(text, relative(process.cwd(), file) || file);
-  return { settings: r.value, errors: r.errors.map((e) => formatSpecError(e, text ?? undefined)) };
+  return { settings: r.value, errors: r.errors.map((e) => formatSpecError(e, text ?? undefined)), text: text ?? '' };
 }
 
 export function assembleCatalog(site: SiteSettings, parts: readonly PartPage[], failures: readonly PartFailure[], version: string): Catalog {

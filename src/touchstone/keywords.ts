@@ -39,7 +39,7 @@ function once<T>(current: T | null, name: string, line: number): void {
   if (current !== null) fail('keyword-order', line, `[${name}] is given twice; expected it once`);
 }
 
-export function parseKeyword(text: string, line: number, h: HeaderState, _haveOptions: boolean, phase: string): KeywordAction {
+export function parseKeyword(text: string, line: number, h: HeaderState, phase: string): KeywordAction {
   const m = /^\[([^\]]*)\](.*)$/.exec(text);
   if (!m) fail('unknown-keyword', line, `"${text}" opens a keyword with "[" but never closes it with "]"`);
   const key = m[1].trim().replace(/\s+/g, ' ').toLowerCase();

@@ -282,7 +282,7 @@ export class TouchstoneParser {
     if (this.phase === 'v1') {
       fail('unknown-keyword', this.line, `keyword ${text.split(']')[0]}] in a version 1 file; a file with keywords must start with [Version] 2.0 or 2.1`);
     }
-    const action = parseKeyword(text, this.line, this.header, this.options !== null, this.phase);
+    const action = parseKeyword(text, this.line, this.header, this.phase);
     switch (action) {
       case 'information':
         this.phase = 'information';
