@@ -4,9 +4,11 @@
  * the site is built in a staging folder and swapped in only when every part
  * built (or, with --keep-going, with the good parts and a list of the others).
  */
-import { readFileSync } from 'node:fs';
+import { existsSync, readFileSync, statSync, writeFileSync } from 'node:fs';
 import { join, relative, resolve } from 'node:path';
-import { discard, stagingFolder, swapInto } from '../io/swap.js';
+import { describeFault } from '../io/fault.js';
+import { outputRefusal, SITE_MARKER, SITE_MARKER_TEXT } from '../io/output-folder.js';
+import { discard, removeDeadBuilds, stagingFolder, swapInto } from '../io/swap.js';
 import { buildCatalog } from '../pipeline/build-catalog.js';
 import { closePlotPool } from '../plots/pool.js';
 import { writeSite } from '../site/eleventy-run.js';
@@ -57,8 +59,31 @@ export function buildOptions(argv: readonly string[], t: Terminal, flags: readon
 
 export async function runBuild(o: BuildOptions, t: Terminal): Promise<{ code: 0 | 1; parts: number; failed: number; ms: number }> {
   const p = painter(t.stderr, t.env);
-  const bar = progress(t);
   const started = performance.now();
+  const rel = (x: string) => relative(t.cwd, x) || '.';
+  const fail = (message: string) => {
+    t.stderr.write(`${p.red('error:')} ${message}\n`);
+    return { code: 1 as const, parts: 0, failed: 0, ms: performance.now() - started };
+  };
+  const shownOut = rel(o.out).startsWith('..') ? o.out : rel(o.out);
+  const refusal = outputRefusal(o.out, { content: o.content, cwd: t.cwd, home: t.env.HOME }, shownOut);
+  if (refusal) return fail(refusal);
+  if (o.cacheDir && existsSync(o.cacheDir) && !statSync(o.cacheDir).isDirectory()) return fail(`--cache ${rel(o.cacheDir)}: is a file, not a folder; name a folder (it is created when missing) or pass --no-cache`);
+  removeDeadBuilds(o.out);
+  try {
+    return await buildAndPublish(o, t, started);
+  } catch (e) {
+    const fault = describeFault(e, rel);
+    if (fault === null) throw e;
+    return fail(`${fault}; nothing was published (${rel(o.out)} is unchanged)`);
+  } finally {
+    await closePlotPool();
+  }
+}
+
+async function buildAndPublish(o: BuildOptions, t: Terminal, started: number): Promise<{ code: 0 | 1; parts: number; failed: number; ms: number }> {
+  const p = painter(t.stderr, t.env);
+  const bar = progress(t);
   const rel = (x: string) => relative(t.cwd, x) || '.';
   const built = await buildCatalog(o.content, {
     version: packageVersion(),
@@ -92,9 +117,10 @@ export async function runBuild(o: BuildOptions, t: Terminal): Promise<{ code: 0 
   const staging = stagingFolder(o.out);
   let pdfNote = '';
   try {
-    await writeSite(o.content, site, staging);
+    await writeSite(o.content, site, staging.dir);
+    writeFileSync(join(staging.dir, SITE_MARKER), SITE_MARKER_TEXT);
     if (found) {
-      const report = await printAll(found, staging, printJobs(site, staging, packageVersion()), {
+      const report = await printAll(found, staging.dir, printJobs(site, staging.dir, packageVersion()), {
         paper: site.site.paper,
         publicBase: site.site.baseUrl,
         onDone: (done, total) => bar.update(`PDFs ${done}/${total}`),
@@ -104,7 +130,7 @@ export async function runBuild(o: BuildOptions, t: Terminal): Promise<{ code: 0 
       const rate = report.printed / Math.max(report.printMs / 1000, 1e-3);
       pdfNote = `, ${report.printed} PDF${report.printed === 1 ? '' : 's'} (${rate.toFixed(1)} per second after the browser started)`;
     }
-    swapInto(staging, o.out);
+    swapInto(staging);
   } catch (e) {
     discard(staging);
     throw e;

@@ -1,4 +1,6 @@
 /** The scatterbook command line: dispatch, usage, exit codes. */
+import { relative } from 'node:path';
+import { describeFault } from '../io/fault.js';
 import { nearest, UsageError } from './args.js';
 import { EXIT, type Command, type ExitCode } from './command.js';
 import { buildCommand } from './build-command.js';
@@ -52,6 +54,11 @@ export async function main(argv: readonly string[], t: Terminal): Promise<ExitCo
     if (e instanceof UsageError) {
       t.stderr.write(`error: ${e.message}\nusage: ${cmd.usage}\n`);
       return EXIT.usage;
+    }
+    const fault = describeFault(e, (x) => relative(t.cwd, x) || x);
+    if (fault !== null) {
+      t.stderr.write(`error: ${fault}\n`);
+      return EXIT.badInput;
     }
     t.stderr.write(`internal error (a bug in scatterbook; please report it with the input that caused it):\n${(e as Error).stack ?? String(e)}\n`);
     return EXIT.internal;

@@ -1,28 +1,117 @@
 /**
- * Publishing a built folder in place of the old one: the new site is built
- * beside the target, then the old target is moved aside and the new one
- * renamed into its place, so a reader sees the old site or the new one,
- * never a half-built one; the old one is removed last.
+ * Publishing a built folder in place of the old one. The new site is built in
+ * a staging folder on the same file system, then swapped in by renames, so a
+ * reader sees the old site or the new one, never a half-built one; the old one
+ * is removed last.
+ *
+ * Two ways to swap:
+ * - `folder`: the staging folder sits beside the target; the old target is
+ *   renamed aside and the staging folder renamed into its place.
+ * - `contents`: the target is a mount point (a container volume, say), which
+ *   cannot be renamed; the staging folder sits inside it, and the entries are
+ *   swapped one by one instead.
+ *
+ * Staging and old folders carry the builder's process id in their names, so a
+ * later build removes those that builds killed before they finished left behind.
  */
-import { existsSync, mkdirSync, renameSync, rmSync } from 'node:fs';
-import { basename, dirname, join, resolve } from 'node:path';
+import { lstatSync, mkdirSync, readdirSync, renameSync, rmSync, statSync } from 'node:fs';
+import { basename, dirname, join } from 'node:path';
+import { realPath } from './output-folder.js';
 
-/** A fresh temporary folder beside `target` (same file system, so rename is atomic). */
-export function stagingFolder(target: string): string {
-  const abs = resolve(target);
-  mkdirSync(dirname(abs), { recursive: true });
-  const dir = join(dirname(abs), `.${basename(abs)}.building-${process.pid}-${Date.now()}`);
-  mkdirSync(dir);
-  return dir;
+export interface Staging {
+  /** The folder to build into. */
+  readonly dir: string;
+  /** The (real) target it will replace. */
+  readonly target: string;
+  readonly mode: 'folder' | 'contents';
 }
 
-export function swapInto(staging: string, target: string): void {
-  const abs = resolve(target);
-  const old = `${join(dirname(abs), `.${basename(abs)}.old-${process.pid}-${Date.now()}`)}`;
-  const hadOld = existsSync(abs);
-  if (hadOld) renameSync(abs, old);
+const CONTENTS_PREFIX = '.scatterbook-';
+const stamp = () => `${process.pid}-${Date.now()}-${Math.random().toString(36).slice(2, 8)}`;
+
+/** Whether `dir` is a mount point: its device differs from its parent's. */
+export function isMountPoint(dir: string): boolean {
   try {
-    renameSync(staging, abs);
+    const st = statSync(dir);
+    return st.isDirectory() && st.dev !== statSync(dirname(dir)).dev;
+  } catch {
+    return false;
+  }
+}
+
+function alive(pid: number): boolean {
+  if (pid === process.pid) return true;
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch (e) {
+    return (e as NodeJS.ErrnoException).code === 'EPERM';
+  }
+}
+
+/** Removes staging and old folders in `dir` whose names match and whose builder is no longer running. */
+function removeLeftovers(dir: string, pattern: RegExp): string[] {
+  const removed: string[] = [];
+  let names: string[];
+  try {
+    names = readdirSync(dir);
+  } catch {
+    return removed;
+  }
+  for (const name of names) {
+    const m = pattern.exec(name);
+    if (!m || alive(Number(m[1]))) continue;
+    try {
+      if (lstatSync(join(dir, name)).isDirectory()) {
+        rmSync(join(dir, name), { recursive: true, force: true });
+        removed.push(join(dir, name));
+      }
+    } catch {
+      // another build removed it first
+    }
+  }
+  return removed;
+}
+
+const escapeRe = (s: string) => s.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+
+/** Staging and old folders of the target left by builds that were killed; removes them and says which. */
+export function removeDeadBuilds(target: string): string[] {
+  const abs = realPath(target);
+  const beside = new RegExp(`^\\.${escapeRe(basename(abs))}\\.(?:building|old)-(\\d+)-`);
+  const inside = new RegExp(`^${escapeRe(CONTENTS_PREFIX)}(?:building|old)-(\\d+)-`);
+  return [...removeLeftovers(dirname(abs), beside), ...removeLeftovers(abs, inside)];
+}
+
+/** A fresh staging folder for `target` on the target's file system. */
+export function stagingFolder(target: string, mode: 'auto' | 'folder' | 'contents' = 'auto'): Staging {
+  const abs = realPath(target);
+  const m = mode === 'auto' ? (isMountPoint(abs) ? 'contents' : 'folder') : mode;
+  if (m === 'contents') {
+    mkdirSync(abs, { recursive: true });
+    const dir = join(abs, `${CONTENTS_PREFIX}building-${stamp()}`);
+    mkdirSync(dir);
+    return { dir, target: abs, mode: m };
+  }
+  mkdirSync(dirname(abs), { recursive: true });
+  const dir = join(dirname(abs), `.${basename(abs)}.building-${stamp()}`);
+  mkdirSync(dir);
+  return { dir, target: abs, mode: m };
+}
+
+export function swapInto(staging: Staging): void {
+  if (staging.mode === 'contents') return swapContents(staging);
+  const abs = staging.target;
+  const old = join(dirname(abs), `.${basename(abs)}.old-${stamp()}`);
+  let hadOld = true;
+  try {
+    renameSync(abs, old);
+  } catch (e) {
+    if ((e as NodeJS.ErrnoException).code !== 'ENOENT') throw e;
+    hadOld = false;
+  }
+  try {
+    renameSync(staging.dir, abs);
   } catch (e) {
     if (hadOld) renameSync(old, abs);
     throw e;
@@ -30,6 +119,35 @@ export function swapInto(staging: string, target: string): void {
   if (hadOld) rmSync(old, { recursive: true, force: true });
 }
 
-export function discard(staging: string): void {
-  rmSync(staging, { recursive: true, force: true });
+/** The target cannot be renamed: move its entries into an old folder inside it, then the staged entries into it. */
+function swapContents(staging: Staging): void {
+  const abs = staging.target;
+  const old = join(abs, `${CONTENTS_PREFIX}old-${stamp()}`);
+  mkdirSync(old);
+  const ownName = (n: string) => n === basename(staging.dir) || n === basename(old);
+  const previous = readdirSync(abs).filter((n) => !ownName(n) && !/^\.scatterbook-(building|old)-/.test(n));
+  const moved: string[] = [];
+  const placed: string[] = [];
+  try {
+    for (const n of previous) {
+      renameSync(join(abs, n), join(old, n));
+      moved.push(n);
+    }
+    for (const n of readdirSync(staging.dir)) {
+      renameSync(join(staging.dir, n), join(abs, n));
+      placed.push(n);
+    }
+  } catch (e) {
+    // put everything back as it was
+    for (const n of placed) renameSync(join(abs, n), join(staging.dir, n));
+    for (const n of moved) renameSync(join(old, n), join(abs, n));
+    rmSync(old, { recursive: true, force: true });
+    throw e;
+  }
+  rmSync(staging.dir, { recursive: true, force: true });
+  rmSync(old, { recursive: true, force: true });
+}
+
+export function discard(staging: Staging): void {
+  rmSync(staging.dir, { recursive: true, force: true });
 }

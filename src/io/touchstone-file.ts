@@ -3,7 +3,8 @@
  * chunks, so memory holds the numbers and one chunk, not the whole text.
  */
 import { createHash } from 'node:crypto';
-import { closeSync, fstatSync, openSync, readSync } from 'node:fs';
+import { closeSync, fstatSync, openSync, readSync, statSync } from 'node:fs';
+import { notAFile } from './text-file.js';
 import { basename } from 'node:path';
 import { TouchstoneParser } from '../touchstone/parse.js';
 import { fromParsed, type ReadResult } from '../touchstone/read.js';
@@ -28,6 +29,9 @@ export function readTouchstoneFile(path: string, options: FileReadOptions = {}):
   const { ports, onProgress } = options;
   let fd: number;
   try {
+    // a folder, a FIFO (which would block an open) or a device is named as such
+    const not = notAFile(statSync(path));
+    if (not) return { value: null, errors: [{ code: 'not-text', line: 0, message: `cannot read the file: it ${not}` }], warnings: [], bytes: 0, sha256: '' };
     fd = openSync(path, 'r');
   } catch (e) {
     const err = e as NodeJS.ErrnoException;

@@ -39,9 +39,14 @@ function measurementFiles(yaml: string): string[] {
  * file's path, size and modification time. (A part with errors is never
  * cached, so its errors are reported at every build.)
  */
-function cacheKey(partFile: string, settingsText: string, version: string): string {
+function cacheKey(partFile: string, settingsText: string, version: string): string | null {
   const h = createHash('sha256');
-  const yaml = readFileSync(partFile, 'utf8');
+  let yaml: string;
+  try {
+    yaml = readFileSync(partFile, 'utf8');
+  } catch {
+    return null; // not a readable file: the part's build says why
+  }
   h.update(version).update('\0').update(settingsText).update('\0').update(yaml);
   for (const file of measurementFiles(yaml)) {
     try {

@@ -7,6 +7,7 @@ import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import type { CheckResult } from '../evaluate/evaluate.js';
 import { figuresJson } from '../evaluate/json.js';
+import { largest, smallest } from '../evaluate/stats.js';
 import { formatFrequency, trimNumber } from '../format/units.js';
 import { formatLimit, formatValue } from '../format/values.js';
 import { ieee370Quality } from '../network/ieee370.js';
@@ -235,8 +236,8 @@ export async function buildPartPage(partFile: string, contentRoot: string, slug:
     hasLimits: m.regions.length > 0,
   }));
   if (times) times.plots += performance.now() - tp;
-  const lo = Math.max(...outcome.units.map((u) => u.network.freqHz[0]));
-  const hi = Math.min(...outcome.units.map((u) => u.network.freqHz[u.network.freqHz.length - 1]));
+  const lo = largest(outcome.units.map((u) => u.network.freqHz[0]));
+  const hi = smallest(outcome.units.map((u) => u.network.freqHz[u.network.freqHz.length - 1]));
   const page: PartPage = {
     slug,
     url: `parts/${slug}/`,
@@ -273,7 +274,14 @@ export function partFolders(contentRoot: string): Array<{ slug: string; file: st
   const dir = join(contentRoot, 'parts');
   if (!existsSync(dir)) return [];
   return readdirSync(dir)
-    .filter((name) => !name.startsWith('.') && statSync(join(dir, name)).isDirectory() && existsSync(join(dir, name, 'part.yaml')))
+    .filter((name) => {
+      if (name.startsWith('.')) return false;
+      try {
+        return statSync(join(dir, name)).isDirectory() && existsSync(join(dir, name, 'part.yaml'));
+      } catch {
+        return false; // a broken link
+      }
+    })
     .sort()
     .map((slug) => ({ slug, file: join(dir, slug, 'part.yaml') }));
 }

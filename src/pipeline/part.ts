@@ -2,7 +2,8 @@
  * One part from disk: its YAML, its measured files, its figures. The only
  * stage that touches files for a part; everything it calls is pure.
  */
-import { readFileSync, realpathSync, statSync } from 'node:fs';
+import { realpathSync, statSync } from 'node:fs';
+import { notAFile, readYamlFile } from '../io/text-file.js';
 import { dirname, isAbsolute, relative, resolve, sep } from 'node:path';
 import { evaluatePart, type PartResult, type UnitData } from '../evaluate/evaluate.js';
 import { loadExpressionCompiler, type ExpressionCompiler } from '../figures/expression.js';
@@ -62,13 +63,9 @@ export function isInside(root: string, target: string): boolean {
  */
 export async function evaluatePartFile(partFile: string, contentRoot: string, displayName = partFile, times?: StageTimes): Promise<PartOutcome> {
   const t0 = performance.now();
-  let source: string;
-  try {
-    source = readFileSync(partFile, 'utf8');
-  } catch (e) {
-    const code = (e as NodeJS.ErrnoException).code;
-    return { source: '', part: null, units: [], result: null, errors: [{ code: 'missing-file', file: displayName, line: 0, column: 0, message: code === 'ENOENT' ? 'no such part file' : `cannot read the part file: ${(e as Error).message}` }] };
-  }
+  const read = readYamlFile(partFile, displayName);
+  if (!read.ok) return { source: '', part: null, units: [], result: null, errors: [read.error] };
+  const source = read.text;
   const compile = needsExpressions(source) ? await (compiler ??= loadExpressionCompiler()) : undefined;
   const loaded = loadPartText(source, displayName, compile);
   if (!loaded.value) return { source, part: null, units: [], result: null, errors: loaded.errors };
@@ -82,14 +79,15 @@ export async function evaluatePartFile(partFile: string, contentRoot: string, di
       errors.push({ code: 'path-outside', file: displayName, ...m.fileAt, message: `measurement file "${m.file}" of unit ${m.unit} lies outside the content folder ${relative(process.cwd(), contentRoot) || '.'}; files must stay inside it` });
       continue;
     }
-    let isFile = false;
+    let what: string | null;
     try {
-      isFile = statSync(path).isFile();
+      what = notAFile(statSync(path));
     } catch {
-      isFile = false;
-    }
-    if (!isFile) {
       errors.push({ code: 'missing-file', file: displayName, ...m.fileAt, message: `measurement file "${m.file}" of unit ${m.unit} does not exist (looked for ${relative(process.cwd(), path)})` });
+      continue;
+    }
+    if (what) {
+      errors.push({ code: 'missing-file', file: displayName, ...m.fileAt, message: `measurement file "${m.file}" of unit ${m.unit} ${what} (${relative(process.cwd(), path)})` });
       continue;
     }
     const r = readTouchstoneFile(path);

@@ -9,7 +9,7 @@ import { FIGURES } from '../figures/registry.js';
 import type { FigureContext, FigureDef, Item } from '../figures/types.js';
 import { frequencyUnitFor } from '../format/units.js';
 import { interpolateAt as valueAt } from '../network/interpolate.js';
-import { median as medianOf } from '../evaluate/stats.js';
+import { largest, median as medianOf, smallest } from '../evaluate/stats.js';
 import { itemOnNetwork } from '../evaluate/mixed.js';
 import type { NormalizedCheck, NormalizedPart } from '../spec/normalize.js';
 import { parameterName, parseParameter, type SParameter } from '../spec/parameter.js';
@@ -70,7 +70,7 @@ interface Display {
 
 function valueDisplay(unit: string, values: number[]): Display {
   if (unit === 's') {
-    const m = Math.max(...values.map(Math.abs).filter(Number.isFinite), 0);
+    const m = largest(values.map(Math.abs).filter(Number.isFinite).concat(0));
     return m < 1e-9 ? { scale: 1e12, label: 'ps' } : { scale: 1e9, label: 'ns' };
   }
   return { scale: 1, label: unit === 'deg' ? 'deg' : unit };
@@ -137,8 +137,8 @@ function rangeFor(def: PlotDef, part: NormalizedPart, matching: readonly Normali
     return b ? [Math.max(lo, b.fromHz), Math.min(hi, b.toHz)] : null;
   }
   if (!matching.length) return null;
-  const from = Math.min(...matching.map((c) => c.band.fromHz));
-  const to = Math.max(...matching.map((c) => c.band.toHz));
+  const from = smallest(matching.map((c) => c.band.fromHz));
+  const to = largest(matching.map((c) => c.band.toHz));
   const pad = Math.max((to - from) * 0.25, ((from + to) / 2) * 0.02);
   return [Math.max(lo, from - pad), Math.min(hi, to + pad)];
 }
@@ -146,8 +146,8 @@ function rangeFor(def: PlotDef, part: NormalizedPart, matching: readonly Normali
 export function buildPlots(part: NormalizedPart, units: readonly UnitData[]): PlotModel[] {
   if (!units.length) return [];
   const ports = units[0].network.ports;
-  const lo = Math.max(...units.map((u) => u.network.freqHz[0]));
-  const hi = Math.min(...units.map((u) => u.network.freqHz[u.network.freqHz.length - 1]));
+  const lo = largest(units.map((u) => u.network.freqHz[0]));
+  const hi = smallest(units.map((u) => u.network.freqHz[u.network.freqHz.length - 1]));
   const out: PlotModel[] = [];
   plotDefs(part).forEach((def, index) => {
     const fig = figureFor(part, def.figure);
@@ -201,8 +201,8 @@ function buildOne(part: NormalizedPart, units: readonly UnitData[], def: PlotDef
       if (!vals.length) return;
       mf.push(f);
       mv.push(medianOf(vals));
-      lo.push(Math.min(...vals));
-      hi.push(Math.max(...vals));
+      lo.push(smallest(vals));
+      hi.push(largest(vals));
     });
     for (const [f, v] of thin(mf, mv, x0, x1)) med.push({ x: f / fu.scale, y: v * disp.scale, item: item.label, trace: `median ${item.label}` });
     if (units.length > 1) {
@@ -225,7 +225,7 @@ function buildOne(part: NormalizedPart, units: readonly UnitData[], def: PlotDef
     }
   }
   const ys = traces.map((t) => t.y).concat(limitYs);
-  let yMin = Math.min(...ys), yMax = Math.max(...ys);
+  let yMin = smallest(ys), yMax = largest(ys);
   const span = yMax - yMin || Math.abs(yMax) * 0.1 || 1;
   yMin -= span * 0.08;
   yMax += span * 0.08;

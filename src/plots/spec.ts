@@ -98,7 +98,8 @@ export function specOf(shape: PlotShape, t: PlotTexts): Record<string, unknown> 
   };
 }
 
-/** The named datasets the spec reads. */
+/** The named datasets the spec reads (a plot of one unit has no spread and no per-unit traces beside its median). */
 export function plotData(m: PlotModel): Record<string, readonly object[]> {
-  return { regions: m.regions, envelope: m.envelope, traces: m.traces, median: m.median, edges: m.edges };
+  const own = { regions: m.regions, median: m.median, edges: m.edges };
+  return shapeOf(m).several ? { ...own, envelope: m.envelope, traces: m.traces } : own;
 }

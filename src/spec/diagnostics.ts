@@ -27,7 +27,8 @@ export type SpecErrorCode =
   | 'bad-limit'
   | 'bad-expression'
   | 'figure-undefined'
-  | 'duplicate';
+  | 'duplicate'
+  | 'bad-encoding';
 
 export interface Position {
   readonly line: number;

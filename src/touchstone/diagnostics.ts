@@ -30,7 +30,8 @@ export type TouchstoneWarningCode =
   | 'later-option-line'
   | 'comment-impedance'
   | 'extension-mismatch'
-  | 'ignored-keyword';
+  | 'ignored-keyword'
+  | 'cr-line-ends';
 
 export interface TouchstoneDiagnostic<Code extends string = TouchstoneErrorCode | TouchstoneWarningCode> {
   readonly code: Code;

@@ -42,6 +42,31 @@ export function portsFromFileName(name: string): number | null {
 }
 
 const MAX_COMMENTS = 200;
+
+/**
+ * What the first bytes of a file say it is, when that is not a Touchstone
+ * text: a message, 'bom' for a UTF-8 byte-order mark to skip, 'cr-only' for
+ * lines ended by CR alone, or null for ordinary text.
+ */
+export function sniff(b: Uint8Array): string | 'bom' | 'cr-only' | null {
+  if (b.length >= 2 && b[0] === 0x1f && b[1] === 0x8b) return 'the file is gzip-compressed, not text; unpack it first (gunzip) and read the .sNp file inside';
+  if (b.length >= 4 && b[0] === 0x50 && b[1] === 0x4b && b[2] === 3 && b[3] === 4) return 'the file is a ZIP archive, not text; unpack it first and read the .sNp file inside';
+  if (b.length >= 2 && ((b[0] === 0xff && b[1] === 0xfe) || (b[0] === 0xfe && b[1] === 0xff))) return 'the file is UTF-16 text (it starts with a UTF-16 byte-order mark); save it as UTF-8 or ASCII';
+  const head = b.subarray(0, Math.min(b.length, 4096));
+  // UTF-16 without a mark: every other byte of ASCII text is zero
+  let zeros = 0;
+  for (let i = 0; i < head.length; i++) if (head[i] === 0) zeros++;
+  if (head.length >= 8 && zeros >= head.length / 3) return 'the file looks like UTF-16 text (every other byte is zero); save it as UTF-8 or ASCII';
+  let controls = 0;
+  for (let i = 0; i < head.length; i++) {
+    const c = head[i];
+    if (c < 32 && c !== 9 && c !== 10 && c !== 12 && c !== 13 && c !== 0) controls++;
+  }
+  if (controls > 0 && controls >= head.length / 100) return `the file holds binary data (${controls} control bytes in its first ${head.length}); a Touchstone file is plain text`;
+  if (b.length >= 3 && b[0] === 0xef && b[1] === 0xbb && b[2] === 0xbf) return 'bom';
+  if (b.indexOf(10) < 0 && b.indexOf(13) >= 0) return 'cr-only';
+  return null;
+}
 const decoder = new TextDecoder('utf-8');
 
 type Phase = 'start' | 'v1' | 'header' | 'network' | 'between' | 'noise' | 'information' | 'end';
@@ -76,6 +101,7 @@ export class TouchstoneParser {
   private error: TouchstoneError | null = null;
   private readonly warnings: TouchstoneWarning[] = [];
   private phase: Phase = 'start';
+  private crOnly = false;
   private version: Version = '1.1';
   private readonly header: HeaderState;
   private options: OptionLine | null = null;
@@ -117,11 +143,27 @@ export class TouchstoneParser {
   }
 
   /** Feeds the next chunk of bytes. The chunk is not kept: the caller may reuse it. */
-  push(chunk: Uint8Array): void {
+  push(input: Uint8Array): void {
+    let chunk = input;
     const start = this.bytesSeen;
     this.bytesSeen += chunk.length;
     if (this.error || this.phase === 'end') return;
     let from = 0;
+    if (start === 0) {
+      const found = sniff(chunk);
+      if (found === 'bom') from = 3;
+      else if (found === 'cr-only') {
+        this.crOnly = true;
+        this.warnings.push({ code: 'cr-line-ends', line: 0, message: 'the lines end in CR alone (classic Mac OS line ends); they are read as line ends' });
+      } else if (found) {
+        this.error = { code: 'not-text', line: 0, message: found };
+        return;
+      }
+    }
+    if (this.crOnly) {
+      chunk = chunk.slice();
+      for (let i = 0; i < chunk.length; i++) if (chunk[i] === 13) chunk[i] = 10;
+    }
     if (this.carry) {
       // finish the line that the previous chunk cut, in a small buffer of its own
       const nl = chunk.indexOf(10);
