@@ -73,7 +73,7 @@ export async function runBuild(o: BuildOptions, t: Terminal): Promise<{ code: 0 
   try {
     return await buildAndPublish(o, t, started);
   } catch (e) {
-    const fault = describeFault(e, rel);
+    const fault = describeFault(e, rel, `writing the new site for ${shownOut}`);
     if (fault === null) throw e;
     return fail(`${fault}; nothing was published (${rel(o.out)} is unchanged)`);
   } finally {
@@ -105,6 +105,10 @@ async function buildAndPublish(o: BuildOptions, t: Terminal, started: number): P
   if (o.pdf !== 'off') {
     const f = await findBrowser(o.browser, t.env as NodeJS.ProcessEnv);
     if ('missing' in f) {
+      if ('named' in f) {
+        t.stderr.write(`${p.red('error:')} ${f.missing}; name a Chromium-family browser, or pass --no-pdf; nothing was written (${rel(o.out)} is unchanged)\n`);
+        return { code: 1, parts: catalog.parts.length, failed: catalog.failures.length, ms: performance.now() - started };
+      }
       if (o.pdf === 'required') {
         t.stderr.write(`${p.red('error:')} PDFs are required (--pdf) but ${f.missing}; ${HOW_TO_GET_PDFS}; nothing was written (${rel(o.out)} is unchanged)\n`);
         return { code: 1, parts: catalog.parts.length, failed: catalog.failures.length, ms: performance.now() - started };

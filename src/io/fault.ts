@@ -53,11 +53,11 @@ export function errnoOf(e: unknown): Errno | null {
   return null;
 }
 
-/** "PATH: no space left on the device (ENOSPC)", or null when `e` is no file-system fault. */
-export function describeFault(e: unknown, show: (path: string) => string = (p) => p): string | null {
+/** "PATH: no space left on the device (ENOSPC)" (`doing` stands for the path where the error has none), or null when `e` is no file-system fault. */
+export function describeFault(e: unknown, show: (path: string) => string = (p) => p, doing?: string): string | null {
   if (e instanceof EnvironmentFault) return e.message;
   const err = errnoOf(e);
   if (!err) return null;
-  const where = err.path ? `${show(err.path)}: ` : '';
+  const where = err.path ? `${show(err.path)}: ` : doing ? `${doing}: ` : '';
   return `${where}${CAUSES[err.code]} (${err.code}${err.syscall ? ` in ${err.syscall}` : ''})`;
 }

@@ -8,7 +8,7 @@
  * SCATTERBOOK_NO_BROWSER_SEARCH=1 skips 2 and 3 (for tests and for machines
  * where only an explicit browser may be used).
  */
-import { existsSync } from 'node:fs';
+import { existsSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 
 export interface FoundBrowser {
@@ -35,10 +35,21 @@ export function usualPlaces(platform: NodeJS.Platform = process.platform, env: N
   return ['/usr/bin/chromium', '/usr/bin/chromium-browser', '/usr/bin/google-chrome', '/usr/bin/google-chrome-stable', '/usr/bin/microsoft-edge', '/usr/bin/microsoft-edge-stable', '/snap/bin/chromium', '/opt/google/chrome/chrome'];
 }
 
-export async function findBrowser(flag: string | undefined, env: NodeJS.ProcessEnv = process.env): Promise<FoundBrowser | { readonly missing: string }> {
-  if (flag) return existsSync(flag) ? { path: flag, source: 'flag', args: [] } : { missing: `--browser ${flag}: no such file` };
+/** A browser the user named: it must be a file; a wrong path is the user's to fix, not a reason to build without PDFs. */
+function named(path: string, source: 'flag' | 'environment', shown: string): FoundBrowser | { readonly missing: string; readonly named: true } {
+  let st;
+  try {
+    st = statSync(path);
+  } catch {
+    return { missing: `${shown}: no such file`, named: true };
+  }
+  return st.isFile() ? { path, source, args: [] } : { missing: `${shown}: ${st.isDirectory() ? 'is a folder, not a browser' : 'is not a file'}`, named: true };
+}
+
+export async function findBrowser(flag: string | undefined, env: NodeJS.ProcessEnv = process.env): Promise<FoundBrowser | { readonly missing: string; readonly named?: true }> {
+  if (flag) return named(flag, 'flag', `--browser ${flag}`);
   const fromEnv = env.SCATTERBOOK_BROWSER;
-  if (fromEnv) return existsSync(fromEnv) ? { path: fromEnv, source: 'environment', args: [] } : { missing: `SCATTERBOOK_BROWSER=${fromEnv}: no such file` };
+  if (fromEnv) return named(fromEnv, 'environment', `SCATTERBOOK_BROWSER=${fromEnv}`);
   if (env.SCATTERBOOK_NO_BROWSER_SEARCH) return { missing: 'no browser given, and SCATTERBOOK_NO_BROWSER_SEARCH forbids looking for one' };
   const installed = usualPlaces().find((p) => existsSync(p));
   if (installed) return { path: installed, source: 'installed', args: [] };

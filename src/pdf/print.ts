@@ -12,6 +12,7 @@ import { join, relative, isAbsolute } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import puppeteer, { type Browser, type Page } from 'puppeteer-core';
 import { writeFileAtomic } from '../io/atomic.js';
+import { EnvironmentFault } from '../io/fault.js';
 import type { FoundBrowser } from './discover.js';
 import { setPdfMetadata, type PdfMetadata } from './metadata.js';
 
@@ -54,6 +55,47 @@ export function launchArgs(profile: string): string[] {
   // the sandbox cannot start as root; everywhere else it stays on
   if (process.getuid?.() === 0) args.push('--no-sandbox');
   return args;
+}
+
+/** How long a browser may take to start and answer before the build gives up on it. */
+export const LAUNCH_TIMEOUT_MS = 20_000;
+
+/**
+ * Starts the browser over a pipe rather than a port, so that it ends when
+ * scatterbook does, however scatterbook ends (Chromium quits when its end of
+ * the pipe closes). A browser that cannot start, or does not answer within
+ * LAUNCH_TIMEOUT_MS, is an EnvironmentFault naming its path.
+ */
+async function launch(found: FoundBrowser, profile: string): Promise<Browser> {
+  const abort = new AbortController();
+  let timer: NodeJS.Timeout | undefined;
+  const timeout = new Promise<never>((_, reject) => {
+    timer = setTimeout(() => {
+      abort.abort();
+      reject(new EnvironmentFault(`the browser ${found.path} did not answer within ${LAUNCH_TIMEOUT_MS / 1000} s; is it a Chromium-family browser? (--browser or SCATTERBOOK_BROWSER names another)`));
+    }, LAUNCH_TIMEOUT_MS);
+  });
+  try {
+    return await Promise.race([
+      puppeteer.launch({
+        executablePath: found.path,
+        headless: true,
+        pipe: true,
+        args: [...found.args, ...launchArgs(profile)],
+        timeout: LAUNCH_TIMEOUT_MS,
+        protocolTimeout: 180_000,
+        signal: abort.signal,
+      }),
+      timeout,
+    ]);
+  } catch (e) {
+    if (e instanceof EnvironmentFault) throw e;
+    const text = String((e as Error).message ?? e);
+    const first = /Target closed|Connection closed/.test(text) ? 'it exited before it answered' : (text.split('\n').find((l) => l.trim()) ?? 'it exited');
+    throw new EnvironmentFault(`the browser ${found.path} could not start: ${first.trim()}; --browser or SCATTERBOOK_BROWSER names another, --no-pdf builds without PDFs`);
+  } finally {
+    clearTimeout(timer);
+  }
 }
 
 /** Running header and footer; Chromium renders these apart from the page, so they carry their own explicit font size. */
@@ -119,7 +161,7 @@ export async function printAll(found: FoundBrowser, root: string, jobs: readonly
   let browser: Browser | null = null;
   const refused: Array<{ page: string; url: string }> = [];
   try {
-    browser = await puppeteer.launch({ executablePath: found.path, headless: true, args: [...found.args, ...launchArgs(profile)] });
+    browser = await launch(found, profile);
     const version = await browser.version();
     const t1 = performance.now();
     const size = Math.max(1, Math.min(jobs.length, options.pages ?? Math.min(4, Math.max(2, availableParallelism()))));

@@ -7,13 +7,13 @@
  * behind, and a mount point as the output folder.
  */
 import { spawnSync } from 'node:child_process';
-import { createHash } from 'node:crypto';
 import { cpSync, existsSync, lstatSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join, relative } from 'node:path';
+import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { makeNetwork } from '../../src/network/network.js';
 import { writeTouchstone } from '../../src/touchstone/write.js';
+import { snapshot } from '../support/snapshot.js';
 
 const ROOT = join(import.meta.dirname, '../..');
 const BIN = join(ROOT, 'bin/scatterbook.js');
@@ -22,21 +22,6 @@ let dir: string;
 function run(args: string[], cwd = dir, env: Record<string, string> = {}) {
   const r = spawnSync(process.execPath, [BIN, ...args], { cwd, encoding: 'utf8', timeout: 120_000, env: { ...process.env, ...env } });
   return { status: r.status, stdout: r.stdout, stderr: r.stderr, signal: r.signal };
-}
-
-/** Every file below `root` (links not followed) with its SHA-256: the state to compare byte for byte. */
-function snapshot(root: string): Record<string, string> {
-  const out: Record<string, string> = {};
-  const walk = (d: string) => {
-    for (const name of readdirSync(d)) {
-      const p = join(d, name);
-      const st = lstatSync(p);
-      if (st.isDirectory()) walk(p);
-      else out[relative(root, p)] = st.isFile() ? createHash('sha256').update(readFileSync(p)).digest('hex') : 'special';
-    }
-  };
-  walk(root);
-  return out;
 }
 
 /** A project folder: a content folder with one demo part, and a file of the user's own. */
