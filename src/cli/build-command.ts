@@ -6,6 +6,7 @@
  */
 import { existsSync, readFileSync, statSync, writeFileSync } from 'node:fs';
 import { join, relative, resolve } from 'node:path';
+import { planAssets } from '../io/assets.js';
 import { describeFault } from '../io/fault.js';
 import { outputRefusal, SITE_MARKER, SITE_MARKER_TEXT } from '../io/output-folder.js';
 import { discard, removeDeadBuilds, stagingFolder, swapInto } from '../io/swap.js';
@@ -93,10 +94,12 @@ async function buildAndPublish(o: BuildOptions, t: Terminal, started: number): P
   bar.done();
   await closePlotPool();
   const { catalog } = built;
-  const problems = [...built.settingsErrors, ...catalog.failures.flatMap((f) => f.messages)];
+  const siteErrors = [...built.settingsErrors, ...planAssets(o.content, rel).errors];
+  const problems = [...siteErrors, ...catalog.failures.flatMap((f) => f.messages)];
   for (const m of problems) t.stderr.write(`${m}\n`);
-  if (built.settingsErrors.length || (catalog.failures.length && !o.keepGoing) || catalog.parts.length === 0) {
-    const why = catalog.parts.length === 0 && !catalog.failures.length ? `no parts found: expected ${rel(join(o.content, 'parts'))}/<slug>/part.yaml` : `${catalog.failures.length + (built.settingsErrors.length ? 1 : 0)} file${catalog.failures.length === 1 ? '' : 's'} with errors`;
+  if (siteErrors.length || (catalog.failures.length && !o.keepGoing) || catalog.parts.length === 0) {
+    const files = catalog.failures.length + siteErrors.length;
+    const why = catalog.parts.length === 0 && !catalog.failures.length && !siteErrors.length ? `no parts found: expected ${rel(join(o.content, 'parts'))}/<slug>/part.yaml` : `${files} file${files === 1 ? '' : 's'} with errors`;
     t.stderr.write(`${p.red('error:')} ${why}; nothing was written (${rel(o.out)} is unchanged)${catalog.failures.length && !o.keepGoing ? '; --keep-going publishes the parts that build' : ''}\n`);
     return { code: 1, parts: catalog.parts.length, failed: catalog.failures.length, ms: performance.now() - started };
   }

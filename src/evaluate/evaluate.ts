@@ -118,6 +118,11 @@ export function evaluatePart(part: NormalizedPart, units: readonly UnitData[]): 
       fail('port-range', part.mixedModeAt, `mixed-mode pairs ${JSON.stringify(pairs)} must cover the ${ports} ports of the measured files exactly once`);
     }
   }
+  if (units.length) {
+    for (const [port, where] of Object.entries(part.portNamesAt)) {
+      if (Number(port) > ports) fail('port-range', where, `ports names port ${port}, but the measured files have ${ports} port${ports === 1 ? '' : 's'}`);
+    }
+  }
   for (const c of part.checks) {
     for (const item of c.items) {
       for (const p of item.params) {

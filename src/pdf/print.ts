@@ -7,6 +7,7 @@
  */
 import { escapeMarkup } from '../format/escape.js';
 import { mkdtempSync, realpathSync, rmSync } from 'node:fs';
+import { createServer } from 'node:net';
 import { availableParallelism, tmpdir } from 'node:os';
 import { join, relative, isAbsolute } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
@@ -57,6 +58,27 @@ export function launchArgs(profile: string): string[] {
   return args;
 }
 
+/**
+ * All of the browser's network traffic, loopback included, goes to a proxy
+ * that answers nothing. Request interception refuses what a page asks for,
+ * but WebSocket connections pass it; through this proxy they reach nothing.
+ */
+export function proxyArgs(port: number): string[] {
+  return [`--proxy-server=http://127.0.0.1:${port}`, '--proxy-bypass-list=<-loopback>'];
+}
+
+/** A local server that closes every connection at once: the browser's only way out. */
+function deadEnd(): Promise<{ port: number; close(): void }> {
+  return new Promise((ok, fail) => {
+    const server = createServer((socket) => socket.destroy());
+    server.on('error', fail);
+    server.listen(0, '127.0.0.1', () => {
+      server.unref();
+      ok({ port: (server.address() as { port: number }).port, close: () => server.close() });
+    });
+  });
+}
+
 /** How long a browser may take to start and answer before the build gives up on it. */
 export const LAUNCH_TIMEOUT_MS = 20_000;
 
@@ -66,7 +88,7 @@ export const LAUNCH_TIMEOUT_MS = 20_000;
  * the pipe closes). A browser that cannot start, or does not answer within
  * LAUNCH_TIMEOUT_MS, is an EnvironmentFault naming its path.
  */
-async function launch(found: FoundBrowser, profile: string): Promise<Browser> {
+async function launch(found: FoundBrowser, profile: string, proxyPort: number): Promise<Browser> {
   const abort = new AbortController();
   let timer: NodeJS.Timeout | undefined;
   const timeout = new Promise<never>((_, reject) => {
@@ -81,7 +103,7 @@ async function launch(found: FoundBrowser, profile: string): Promise<Browser> {
         executablePath: found.path,
         headless: true,
         pipe: true,
-        args: [...found.args, ...launchArgs(profile)],
+        args: [...found.args, ...launchArgs(profile), ...proxyArgs(proxyPort)],
         timeout: LAUNCH_TIMEOUT_MS,
         protocolTimeout: 180_000,
         signal: abort.signal,
@@ -159,9 +181,11 @@ export async function printAll(found: FoundBrowser, root: string, jobs: readonly
   const profile = mkdtempSync(join(tmpdir(), 'scatterbook-browser-'));
   const t0 = performance.now();
   let browser: Browser | null = null;
+  let sink: { port: number; close(): void } | null = null;
   const refused: Array<{ page: string; url: string }> = [];
   try {
-    browser = await launch(found, profile);
+    sink = await deadEnd();
+    browser = await launch(found, profile, sink.port);
     const version = await browser.version();
     const t1 = performance.now();
     const size = Math.max(1, Math.min(jobs.length, options.pages ?? Math.min(4, Math.max(2, availableParallelism()))));
@@ -178,6 +202,10 @@ export async function printAll(found: FoundBrowser, root: string, jobs: readonly
           void req.abort('blockedbyclient');
         }
       });
+      // WebSockets pass request interception: the dead-end proxy stops them, this reports them
+      const cdp = await page.createCDPSession();
+      cdp.on('Network.webSocketCreated', (e: { url: string }) => refused.push({ page: current, url: e.url }));
+      await cdp.send('Network.enable');
       while (next < jobs.length) {
         const job = jobs[next++];
         current = relative(root, job.html);
@@ -191,6 +219,7 @@ export async function printAll(found: FoundBrowser, root: string, jobs: readonly
     return { printed: done, refused, browserVersion: version, launchMs: t1 - t0, printMs: performance.now() - t1 };
   } finally {
     await browser?.close();
+    sink?.close();
     rmSync(profile, { recursive: true, force: true });
   }
 }

@@ -3,7 +3,7 @@
  * plots (as SVG), measurement provenance and data quality, formatted for the
  * templates, which only place it. Eleventy receives this as global data.
  */
-import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
+import { existsSync, readdirSync, realpathSync, statSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import type { CheckResult } from '../evaluate/evaluate.js';
 import { figuresJson } from '../evaluate/json.js';
@@ -20,7 +20,9 @@ import { formatSpecError, type SpecError } from '../spec/diagnostics.js';
 import type { NormalizedPart } from '../spec/normalize.js';
 import { cautionsFor } from '../site/cautions.js';
 import { renderMarkdown } from '../site/markdown.js';
-import { loadSettings, type SiteSettings } from '../site/settings.js';
+import { assetPathProblem, loadSettings, type SiteSettings } from '../site/settings.js';
+import { realPath, within } from '../io/output-folder.js';
+import { readYamlFile } from '../io/text-file.js';
 import { evaluatePartFile, type LoadedUnit, type StageTimes } from './part.js';
 
 export interface Cell {
@@ -286,12 +288,30 @@ export function partFolders(contentRoot: string): Array<{ slug: string; file: st
     .map((slug) => ({ slug, file: join(dir, slug, 'part.yaml') }));
 }
 
-/** content/site.yaml, parsed; `text` is '' when there is none (it also keys the cache). */
+/** content/site.yaml, parsed and checked (logo and stylesheet must be files of the content folder's assets/); `text` is '' when there is none (it also keys the cache). */
 export function readSettings(contentRoot: string): { settings: SiteSettings; errors: string[]; text: string } {
   const file = join(contentRoot, 'site.yaml');
-  const text = existsSync(file) ? readFileSync(file, 'utf8') : null;
-  const r = loadSettings(text, relative(process.cwd(), file) || file);
-  return { settings: r.value, errors: r.errors.map((e) => formatSpecError(e, text ?? undefined)), text: text ?? '' };
+  const shown = relative(process.cwd(), file) || file;
+  const read = readYamlFile(file, shown, 'site.yaml');
+  if (!read.ok && !read.missing) return { settings: loadSettings(null, shown).value, errors: [formatSpecError(read.error)], text: '' };
+  const text = read.ok ? read.text : null;
+  const r = loadSettings(text, shown);
+  const errors = [...r.errors];
+  const content = realPath(contentRoot);
+  const isFile = (rel: string): boolean | 'outside' => {
+    try {
+      if (!within(content, realpathSync(join(contentRoot, rel)))) return 'outside';
+      return statSync(join(contentRoot, rel)).isFile();
+    } catch {
+      return false;
+    }
+  };
+  for (const key of ['logo', 'stylesheet'] as const) {
+    const value = r.value[key];
+    const problem = value === null ? null : assetPathProblem(key, value, isFile);
+    if (problem) errors.push({ code: 'bad-value', file: shown, message: problem, ...(r.positions.get(key) ?? { line: 0, column: 0 }) });
+  }
+  return { settings: r.value, errors: errors.map((e) => formatSpecError(e, text ?? undefined)), text: text ?? '' };
 }
 
 export function assembleCatalog(site: SiteSettings, parts: readonly PartPage[], failures: readonly PartFailure[], version: string): Catalog {

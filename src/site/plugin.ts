@@ -12,6 +12,7 @@ import { fileURLToPath } from 'node:url';
 import type { UserConfig } from '@11ty/eleventy';
 import nunjucks from 'nunjucks';
 import type { Catalog } from '../pipeline/catalog.js';
+import { copyAssets, planAssets } from '../io/assets.js';
 
 /** The package root (this file is src/site/plugin.ts, or dist/site/plugin.js once compiled). */
 export const PACKAGE_ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '../..');
@@ -62,8 +63,13 @@ export function scatterbookSite(config: UserConfig, options: SitePluginOptions):
   config.addGlobalData('catalog', typeof options.catalog === 'function' ? options.catalog : () => options.catalog);
   config.addPassthroughCopy({ [ASSETS_DIR]: 'assets' });
   for (const f of fontFiles()) config.addPassthroughCopy({ [f.from]: f.to });
-  const vendorAssets = join(options.content, 'assets');
-  if (existsSync(vendorAssets)) config.addPassthroughCopy({ [vendorAssets]: 'assets' });
+  // the vendor's assets: regular files only, never a link out of the content folder (see io/assets.ts)
+  config.on('eleventy.after', (...args: unknown[]) => {
+    const { dir } = args[0] as { dir: { output: string } };
+    const plan = planAssets(options.content);
+    if (plan.errors.length) throw new Error(plan.errors.join('\n'));
+    copyAssets(plan, dir.output);
+  });
   // Eleventy reads watch targets relative to the working folder
   config.addWatchTarget(relative(process.cwd(), options.content) || '.');
 }

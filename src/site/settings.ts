@@ -4,7 +4,7 @@
  * language as part files.
  */
 import { LineCounter, parseDocument } from 'yaml';
-import type { SpecError } from '../spec/diagnostics.js';
+import type { Position, SpecError } from '../spec/diagnostics.js';
 import type { Schema } from '../spec/schema-dsl.js';
 import { validate, type Plain } from '../spec/validate.js';
 
@@ -30,13 +30,13 @@ export const SITE_SCHEMA: Schema = {
   fields: {
     vendor: { t: 'string', description: 'the vendor\'s name, on every page' },
     tagline: { t: 'string', description: 'a line under the vendor\'s name on the index' },
-    logo: { t: 'string', description: 'a logo image, relative to the content folder (e.g. assets/logo.svg)' },
+    logo: { t: 'string', description: 'a logo image in the content folder\'s assets/, relative to the content folder (e.g. assets/logo.svg)' },
     accent: { t: 'string', pattern: '^#[0-9a-fA-F]{6}$', patternHint: '#RRGGBB', description: 'the accent colour, #RRGGBB' },
     paper: { t: 'string', enum: ['A4', 'Letter'], description: 'paper size of the PDFs and print stylesheet' },
     footer: { t: 'string', description: 'text at the foot of every page' },
     disclaimer: { t: 'string', description: 'the disclaimer under every datasheet' },
     'base-url': { t: 'string', description: 'where the site will be published, e.g. https://example.invalid/datasheets/' },
-    stylesheet: { t: 'string', description: 'an extra stylesheet, relative to the content folder (e.g. assets/vendor.css)' },
+    stylesheet: { t: 'string', description: 'an extra stylesheet in the content folder\'s assets/, relative to the content folder (e.g. assets/vendor.css)' },
   },
 };
 
@@ -44,16 +44,17 @@ export function defaultSettings(): SiteSettings {
   return { vendor: 'Datasheets', tagline: '', logo: null, accent: '#1f4e8c', paper: 'A4', footer: '', disclaimer: DEFAULT_DISCLAIMER, baseUrl: '/', stylesheet: null };
 }
 
-export function loadSettings(text: string | null, file: string): { value: SiteSettings; errors: SpecError[] } {
+export function loadSettings(text: string | null, file: string): { value: SiteSettings; errors: SpecError[]; positions: ReadonlyMap<string, Position> } {
   const d = defaultSettings();
-  if (text === null) return { value: d, errors: [] };
+  const none = new Map<string, Position>();
+  if (text === null) return { value: d, errors: [], positions: none };
   const lines = new LineCounter();
   const doc = parseDocument(text, { version: '1.2', lineCounter: lines, prettyErrors: false });
   if (doc.errors.length) {
-    return { value: d, errors: doc.errors.map((e) => ({ code: 'yaml-syntax', file, message: `YAML syntax: ${e.message.split(' at line')[0]}`, ...toPos(lines, e.pos[0]) })) };
+    return { value: d, errors: doc.errors.map((e) => ({ code: 'yaml-syntax', file, message: `YAML syntax: ${e.message.split(' at line')[0]}`, ...toPos(lines, e.pos[0]) })), positions: none };
   }
-  if (doc.contents === null) return { value: d, errors: [] };
-  const r = validate(doc.contents, SITE_SCHEMA, file, lines);
+  if (doc.contents === null) return { value: d, errors: [], positions: none };
+  const r = validate(doc.contents, SITE_SCHEMA, file, lines, (a) => a.resolve(doc));
   const v = (r.value ?? {}) as Record<string, Plain>;
   const s = (k: string) => (typeof v[k] === 'string' ? (v[k] as string) : undefined);
   return {
@@ -69,7 +70,26 @@ export function loadSettings(text: string | null, file: string): { value: SiteSe
       stylesheet: s('stylesheet') ?? null,
     },
     errors: r.errors,
+    positions: r.positions,
   };
+}
+
+/**
+ * Why a logo or stylesheet path of site.yaml cannot be used, or null: it must
+ * name a file under the content folder's assets/ (which is copied into the
+ * site), written relative to the content folder; never a remote address, an
+ * absolute path or a path that leaves the folder. `isFile` answers for the
+ * resolved path (the caller owns the file system).
+ */
+export function assetPathProblem(key: string, value: string, isFile: (relativePath: string) => boolean | 'outside'): string | null {
+  if (/^[a-z][a-z0-9+.-]*:/i.test(value) || value.startsWith('//')) return `${key} "${value}" is a remote address; the site carries its own files: put the file in the content folder's assets/ and write assets/…`;
+  if (value.startsWith('/') || /^[a-z]:[\\/]/i.test(value)) return `${key} "${value}" is an absolute path; write it relative to the content folder, e.g. assets/${value.split(/[\\/]/).pop()}`;
+  const parts = value.split(/[\\/]/);
+  if (parts.includes('..') || parts[0] !== 'assets' || parts.length < 2) return `${key} "${value}" must lie in the content folder's assets/ (which is copied into the site), e.g. assets/${parts.pop()}`;
+  const found = isFile(value);
+  if (found === 'outside') return `${key} "${value}" leads outside the content folder through a link`;
+  if (!found) return `${key} "${value}" does not exist in the content folder (or is not a file)`;
+  return null;
 }
 
 function toPos(lines: LineCounter, offset: number) {

@@ -37,7 +37,7 @@ export function loadPartText(text: string, file: string, compile?: ExpressionCom
   if (doc.contents === null) {
     return { value: null, errors: [{ code: 'missing-key', file, message: 'the part file is empty; it needs at least part, class and measurements', line: 0, column: 0 }] };
   }
-  const checked = validate(doc.contents, PART_SCHEMA, file, lines);
+  const checked = validate(doc.contents, PART_SCHEMA, file, lines, (a) => a.resolve(doc));
   const normalized = normalizePart({ file, value: checked.value, positions: checked.positions, compile });
   const errors = [...checked.errors, ...normalized.errors].sort((a, b) => a.line - b.line || a.column - b.column);
   return { value: errors.length ? null : normalized.value, errors };

@@ -10,7 +10,7 @@ import type { FigureDef, FigureUnit, Item } from '../figures/types.js';
 import { nearest } from '../format/suggest.js';
 import type { Position, SpecError, SpecErrorCode } from './diagnostics.js';
 import { parameterName, parseParameter, type SParameter } from './parameter.js';
-import type { PartClass } from './part-schema.js';
+import { MAX_LEVEL_DB, type PartClass } from './part-schema.js';
 import { parseQuantity, KIND_NAMES, type QuantityKind } from './quantity.js';
 import type { Plain } from './validate.js';
 
@@ -73,6 +73,8 @@ export interface NormalizedPart {
   readonly connector: string | null;
   readonly operatingTemperature: string | null;
   readonly portNames: Readonly<Record<number, string>>;
+  /** Where each port's name is written (its key), for errors once the port count is known. */
+  readonly portNamesAt: Readonly<Record<number, Position>>;
   readonly ways: number | null;
   readonly phaseSplitDeg: number | null;
   /** Single-ended port pairs of the mixed-mode ports, or null. */
@@ -121,6 +123,10 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
       if (!isObj(b) || b.from === undefined || b.to === undefined) continue;
       const from = parseQuantity(b.from as string), to = parseQuantity(b.to as string);
       if (!from.ok || !to.ok) continue;
+      if (from.value < 0) {
+        err('bad-value', `bands.${name}.from`, `band ${name} starts at a negative frequency (${b.from}); frequencies are 0 Hz or above`);
+        continue;
+      }
       if (to.value < from.value) {
         err('bad-value', `bands.${name}.to`, `band ${name} ends below where it starts (${b.from} to ${b.to}); from ≤ to (equal for a single frequency)`);
         continue;
@@ -320,6 +326,9 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
       }
     }
     const levelQ = e.level !== undefined ? parseQuantity(e.level as string) : null;
+    if (levelQ && levelQ.ok && !(levelQ.value > 0 && levelQ.value <= MAX_LEVEL_DB)) {
+      err('bad-value', `${path}.level`, `level ${e.level} is out of range: the band edges sit above 0 dB and at most ${MAX_LEVEL_DB} dB below the best insertion loss (the usual values are 0.5, 1 and 3 dB)`);
+    }
     if (errors.length > before || !band) return null;
     return {
       kind,
@@ -339,7 +348,14 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
   }
 
   const portNames: Record<number, string> = {};
-  if (isObj(spec.ports)) for (const [k, v] of Object.entries(spec.ports)) if (typeof v === 'string') portNames[Number(k)] = v;
+  const portNamesAt: Record<number, Position> = {};
+  if (isObj(spec.ports)) {
+    for (const [k, v] of Object.entries(spec.ports)) {
+      if (typeof v !== 'string') continue;
+      portNames[Number(k)] = v;
+      portNamesAt[Number(k)] = at(`ports#${k}`);
+    }
+  }
   const ratings = Array.isArray(spec.ratings)
     ? spec.ratings.filter(isObj).map((r) => ({ parameter: String(r.parameter ?? ''), value: String(r.value ?? ''), notes: str(r.notes) }))
     : [];
@@ -357,6 +373,7 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
     connector: str(spec.connector),
     operatingTemperature: str(spec['operating-temperature']),
     portNames,
+    portNamesAt,
     ways,
     phaseSplitDeg,
     mixedModePairs,

@@ -5,6 +5,11 @@
  */
 import { NAME_PATTERN, type Field, type Schema } from './schema-dsl.js';
 
+/** Ranges of the part file's numbers (documented in the README and carried into the JSON Schema). */
+export const MAX_PORT = 999;
+export const MAX_APERTURE = 100;
+export const MAX_LEVEL_DB = 60;
+
 export const CLASSES = ['filter', 'attenuator', 'amplifier', 'divider', 'coupler', 'hybrid', 'circulator', 'isolator', 'cable', 'switch', 'balun', 'generic'] as const;
 export type PartClass = (typeof CLASSES)[number];
 
@@ -26,9 +31,9 @@ const figureFields: Record<string, Field> = {
     items: str('an S-parameter name such as S21 or S10,12'),
   },
   band: { ...str('the band (a key of bands) the figure is evaluated over'), required: true },
-  ports: { t: 'array', minItems: 2, maxItems: 2, items: { t: 'integer', min: 1, description: 'a port number' }, description: 'stability figures: the input and output port (default [1, 2])' },
-  aperture: { t: 'integer', min: 1, description: 'group delay: difference over ±N measured points (default 1, plain central differences)' },
-  level: { t: 'quantity', kinds: ['dB'], description: 'bandwidth and centre frequency: how far below the best insertion loss the band edges sit (default 3 dB)' },
+  ports: { t: 'array', minItems: 2, maxItems: 2, items: { t: 'integer', min: 1, max: MAX_PORT, description: 'a port number' }, description: 'stability figures: the input and output port (default [1, 2])' },
+  aperture: { t: 'integer', min: 1, max: MAX_APERTURE, description: `group delay: difference over ±N measured points, 1 to ${MAX_APERTURE} (default 1, plain central differences)` },
+  level: { t: 'quantity', kinds: ['dB'], description: `bandwidth and centre frequency: how far below the best insertion loss the band edges sit, above 0 and at most ${MAX_LEVEL_DB} dB (default 3 dB)` },
   when: { ...conditions, description: 'only the units measured under these conditions, e.g. {temperature: 85 °C}' },
   label: str('a name for this row of the tables, replacing the figure name'),
 };
@@ -59,15 +64,15 @@ export const PART_SCHEMA: Schema = {
     title: str('a one-line title, e.g. Bandpass filter, 2.40–2.50 GHz'),
     class: { ...str('the component class', { enum: CLASSES }), required: true },
     revision: text('the revision of this datasheet'),
-    date: str('the date of this revision, YYYY-MM-DD', { pattern: '^\\d{4}-\\d{2}-\\d{2}$', patternHint: 'YYYY-MM-DD, e.g. 2026-11-20' }),
+    date: str('the date of this revision, YYYY-MM-DD (a real calendar date)', { pattern: '^\\d{4}-\\d{2}-\\d{2}$', patternHint: 'YYYY-MM-DD, e.g. 2026-11-20', format: 'date' }),
     vendor: str('the vendor, when it differs from the catalog\'s'),
     description: str('a paragraph describing the part'),
     notes: str('notes for the datasheet, in Markdown (raw HTML is not rendered)'),
     package: str('package or housing'),
     connector: str('RF connectors'),
     'operating-temperature': str('operating temperature range, e.g. −40 to +85 °C'),
-    ports: { t: 'map', keys: 'integer', value: str('the port\'s name'), description: 'port number → name (default "Port n")' },
-    ways: { t: 'integer', min: 2, description: 'dividers: the number of outputs N for excess loss (default: ports − 1)' },
+    ports: { t: 'map', keys: 'integer', value: str('the port\'s name'), description: 'port number → name (default "Port n"); every number must be a port of the measured files' },
+    ways: { t: 'integer', min: 2, max: MAX_PORT, description: 'dividers: the number of outputs N for excess loss (default: ports − 1)' },
     'phase-split': { t: 'quantity', kinds: ['deg'], description: 'hybrids and baluns: the intended phase difference between outputs (default 90 deg for a hybrid, 180 deg for a balun)' },
     'mixed-mode': {
       t: 'object',
@@ -78,7 +83,7 @@ export const PART_SCHEMA: Schema = {
           minItems: 1,
           required: true,
           description: 'for mixed-mode port 1, 2, …: its [positive, negative] single-ended ports, e.g. [[1, 2], [3, 4]]',
-          items: { t: 'array', minItems: 2, maxItems: 2, items: { t: 'integer', min: 1, description: 'a port number' }, description: 'a pair' },
+          items: { t: 'array', minItems: 2, maxItems: 2, items: { t: 'integer', min: 1, max: MAX_PORT, description: 'a port number' }, description: 'a pair' },
         },
       },
     },

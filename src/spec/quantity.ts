@@ -45,7 +45,7 @@ export type QuantityResult =
   | { readonly ok: true; readonly value: number; readonly kind: QuantityKind; readonly unit: string }
   | { readonly ok: false; readonly problem: 'not-a-quantity' | 'unknown-unit'; readonly message: string };
 
-const NUMBER = /^([+-−]?(?:\d+\.?\d*|\.\d+))(?:[eE]([+-]?\d+))?\s*(.*)$/;
+const NUMBER = /^([+\-−]?(?:\d+\.?\d*|\.\d+))(?:[eE]([+\-]?\d+))?\s*(.*)$/;
 
 /** Parses a number with an optional unit; a bare number is unitless. */
 export function parseQuantity(input: string | number): QuantityResult {
@@ -58,12 +58,18 @@ export function parseQuantity(input: string | number): QuantityResult {
   const mantissa = m[1].replace('−', '-');
   const exponent = Number(m[2] ?? 0);
   const unitText = m[3].trim();
-  if (unitText === '') return { ok: true, value: Number(`${mantissa}e${exponent}`), kind: 'unitless', unit: '' };
+  if (unitText === '') return finite(Number(`${mantissa}e${exponent}`), 'unitless', '', input);
   const unit = UNITS[unitText] ? unitText : CASE_FOLD[unitText.toLowerCase()];
   const info = unit ? UNITS[unit] : undefined;
   if (!info) {
     return { ok: false, problem: 'unknown-unit', message: `unknown unit "${unitText}" in "${input}"; expected one of Hz, kHz, MHz, GHz, dB, deg, s, ms, us, ns, ps` };
   }
   // the unit's power of ten joins the exponent, so "4.78 ns" is exactly the double nearest 4.78e-9
-  return { ok: true, value: Number(`${mantissa}e${exponent + info.exp}`), kind: info.kind, unit };
+  return finite(Number(`${mantissa}e${exponent + info.exp}`), info.kind, unit as string, input);
+}
+
+/** Numbers beyond the double range (1e400) become ±Infinity when parsed: they are refused, not published as null. */
+function finite(value: number, kind: QuantityKind, unit: string, input: string): QuantityResult {
+  if (!Number.isFinite(value)) return { ok: false, problem: 'not-a-quantity', message: `"${input}" is beyond the range of numbers (about ±1.8e308)` };
+  return { ok: true, value, kind, unit };
 }

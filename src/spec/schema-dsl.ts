@@ -9,9 +9,9 @@ interface Base {
 }
 
 export type Schema =
-  | (Base & { readonly t: 'string'; readonly enum?: readonly string[]; readonly pattern?: string; readonly patternHint?: string })
+  | (Base & { readonly t: 'string'; readonly enum?: readonly string[]; readonly pattern?: string; readonly patternHint?: string; readonly format?: 'date' })
   | (Base & { readonly t: 'text' }) // a string, or a number/boolean written where text is meant (revision: 2)
-  | (Base & { readonly t: 'integer'; readonly min?: number })
+  | (Base & { readonly t: 'integer'; readonly min?: number; readonly max?: number })
   | (Base & { readonly t: 'quantity'; readonly kinds?: readonly QuantityKind[] })
   | (Base & { readonly t: 'scalar' })
   | (Base & { readonly t: 'object'; readonly fields: Readonly<Record<string, Field>> })
@@ -30,15 +30,15 @@ export function toJsonSchema(s: Schema): Json {
   const d = { description: s.description };
   switch (s.t) {
     case 'string':
-      return { ...d, type: 'string', ...(s.enum ? { enum: [...s.enum] } : {}), ...(s.pattern ? { pattern: s.pattern } : {}) };
+      return { ...d, type: 'string', ...(s.enum ? { enum: [...s.enum] } : {}), ...(s.pattern ? { pattern: s.pattern } : {}), ...(s.format ? { format: s.format } : {}) };
     case 'text':
       return { ...d, type: ['string', 'number', 'boolean'] };
     case 'integer':
-      return { ...d, type: 'integer', ...(s.min !== undefined ? { minimum: s.min } : {}) };
+      return { ...d, type: 'integer', ...(s.min !== undefined ? { minimum: s.min } : {}), ...(s.max !== undefined ? { maximum: s.max } : {}) };
     case 'quantity': {
       const units = unitPattern(s.kinds);
       const allowsBare = !s.kinds || s.kinds.includes('unitless');
-      const str = { type: 'string', pattern: `^\\s*[+-−]?(\\d+\\.?\\d*|\\.\\d+)([eE][+-]?\\d+)?\\s*(${units})\\s*$` };
+      const str = { type: 'string', pattern: `^\\s*[+\\-−]?(\\d+\\.?\\d*|\\.\\d+)([eE][+\\-]?\\d+)?\\s*(${units})\\s*$` };
       return allowsBare ? { ...d, oneOf: [{ type: 'number' }, str] } : { ...d, ...str };
     }
     case 'scalar':

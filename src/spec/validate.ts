@@ -4,11 +4,23 @@
  * the line and column of its node, plus an index of positions by path
  * ("limits.2.band") for the checks that come after.
  */
-import { isMap, isPair, isScalar, isSeq, type LineCounter, type Node, type Pair } from 'yaml';
+import { isAlias, isMap, isPair, isScalar, isSeq, type Alias, type LineCounter, type Node, type Pair } from 'yaml';
 import { nearest } from '../format/suggest.js';
 import type { Position, SpecError, SpecErrorCode } from './diagnostics.js';
 import { parseQuantity, KIND_NAMES } from './quantity.js';
 import { NAME_PATTERN, type Schema } from './schema-dsl.js';
+
+/** Alias uses walked at the most: a few are handy (a shared conditions map), thousands are an expansion bomb. */
+export const MAX_ALIASES = 1000;
+
+/** Whether a YYYY-MM-DD text names a real day (2026-02-30 and 2026-13-45 do not). */
+export function isCalendarDate(text: string): boolean {
+  const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(text);
+  if (!m) return false;
+  const [y, mo, d] = [Number(m[1]), Number(m[2]), Number(m[3])];
+  const t = new Date(Date.UTC(y, mo - 1, d));
+  return t.getUTCFullYear() === y && t.getUTCMonth() === mo - 1 && t.getUTCDate() === d;
+}
 
 export type Plain = string | number | boolean | null | Plain[] | { [k: string]: Plain };
 
@@ -41,7 +53,7 @@ const describe = (s: Schema): string => {
   }
 };
 
-export function validate(root: Node | null, schema: Schema, file: string, lines: LineCounter): Validated {
+export function validate(root: Node | null, schema: Schema, file: string, lines: LineCounter, resolveAlias?: (alias: Alias) => Node | undefined): Validated {
   const errors: SpecError[] = [];
   const positions = new Map<string, Position>();
   const posOf = (node: Node | null | undefined): Position => {
@@ -52,8 +64,23 @@ export function validate(root: Node | null, schema: Schema, file: string, lines:
   };
   const err = (code: SpecErrorCode, node: Node | null | undefined, message: string) => errors.push({ code, file, message, ...posOf(node) });
 
-  function walk(node: Node | null, s: Schema, path: string, label: string): Plain | undefined {
-    positions.set(path, posOf(node));
+  let aliases = 0;
+  function walk(written: Node | null, s: Schema, path: string, label: string): Plain | undefined {
+    let node = written;
+    if (node && isAlias(node)) {
+      // an alias stands for its anchored node; each use is walked again, so uses are counted against expansion bombs
+      if (++aliases > MAX_ALIASES) {
+        if (aliases === MAX_ALIASES + 1) err('bad-value', node, `more than ${MAX_ALIASES} alias uses (*name); a part file needs few, and this many is how a file expands without bound`);
+        return undefined;
+      }
+      const target = resolveAlias ? resolveAlias(node) : undefined;
+      if (!target) {
+        err('bad-value', node, `alias *${node.source} names no anchor (&${node.source}) defined before it`);
+        return undefined;
+      }
+      node = target;
+    }
+    positions.set(path, posOf(written));
     const wrong = () => {
       err('wrong-type', node, `${label} must be ${describe(s)}${node && isScalar(node) ? `, not ${JSON.stringify(node.value)}` : node && isSeq(node) ? ', not a list' : node && isMap(node) ? ', not a mapping' : ''}`);
       return undefined;
@@ -77,13 +104,17 @@ export function validate(root: Node | null, schema: Schema, file: string, lines:
             err('bad-value', node, `${label} "${v}" is not in the form ${s.patternHint ?? s.pattern}`);
             return undefined;
           }
+          if (s.format === 'date' && !isCalendarDate(v)) {
+            err('bad-value', node, `${label} "${v}" is not a date of the calendar (YYYY-MM-DD with a month 01–12 and a day that month has)`);
+            return undefined;
+          }
           return v;
         }
         if (s.t === 'text' || s.t === 'scalar') return typeof v === 'string' || typeof v === 'number' || typeof v === 'boolean' ? (s.t === 'text' ? String(v) : v) : wrong();
         if (s.t === 'integer') {
           if (typeof v !== 'number' || !Number.isInteger(v)) return wrong();
-          if (s.min !== undefined && v < s.min) {
-            err('bad-value', node, `${label} must be at least ${s.min}, got ${v}`);
+          if ((s.min !== undefined && v < s.min) || (s.max !== undefined && v > s.max)) {
+            err('bad-value', node, `${label} must be ${s.max === undefined ? `at least ${s.min}` : `a whole number from ${s.min ?? 0} to ${s.max}`}, got ${v}`);
             return undefined;
           }
           return v;

@@ -6,7 +6,9 @@
  * page that is not blank; requests outside the build folder refused; and what
  * happens without a browser.
  */
-import { execFileSync, spawnSync } from 'node:child_process';
+import { execFileSync, spawn, spawnSync } from 'node:child_process';
+import { createServer } from 'node:http';
+import type { AddressInfo } from 'node:net';
 import { cpSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -112,6 +114,32 @@ describe.skipIf(!haveBrowser || !havePoppler)('PDF datasheets', () => {
     expect(r.stderr).toMatch(/asked for file:\/\/\/[^ ]*secret\.png, which was refused/);
     expect(Number(info(join(dir, 'leaky-site/parts/vt-att-10/VT-ATT-10.pdf')).Pages)).toBeGreaterThanOrEqual(1);
   });
+});
+
+describe('WebSockets, which pass request interception', () => {
+  it.skipIf(!haveBrowser)('a page that opens one to a local port reaches nothing, and the build reports it', async () => {
+    let connections = 0;
+    const server = createServer((_, res) => res.end('x'));
+    server.on('connection', () => connections++);
+    await new Promise<void>((ok) => server.listen(0, '127.0.0.1', ok));
+    const port = (server.address() as AddressInfo).port;
+    const content = join(dir, 'socket');
+    mkdirSync(join(content, 'parts'), { recursive: true });
+    cpSync(join(ROOT, 'content/parts/vt-att-10'), join(content, 'parts/vt-att-10'), { recursive: true });
+    mkdirSync(join(content, '_includes'));
+    writeFileSync(join(content, '_includes/notes.njk'), `<script>new WebSocket('ws://127.0.0.1:${port}/leak'); fetch('http://127.0.0.1:${port}/leak2').catch(() => {});</script>\n`);
+    const r = await new Promise<{ status: number | null; stderr: string }>((ok) => {
+      const child = spawn(process.execPath, [BIN, 'build', 'socket', '--out', 'socket-site', '--no-cache', '--pdf'], { cwd: dir });
+      let stderr = '';
+      child.stderr.on('data', (d) => (stderr += d));
+      child.on('close', (status) => ok({ status, stderr }));
+    });
+    server.close();
+    expect(r.status).toBe(0);
+    expect(r.stderr).toContain(`parts/vt-att-10/index.html asked for ws://127.0.0.1:${port}/leak, which was refused`);
+    expect(r.stderr).toContain(`asked for http://127.0.0.1:${port}/leak2, which was refused`);
+    expect(connections).toBe(0);
+  }, 120_000);
 });
 
 describe('without a browser', () => {
