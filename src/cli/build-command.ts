@@ -6,6 +6,7 @@
  */
 import { existsSync, readFileSync, statSync, writeFileSync } from 'node:fs';
 import { join, relative, resolve } from 'node:path';
+import { printable } from '../format/escape.js';
 import { planAssets } from '../io/assets.js';
 import { describeFault } from '../io/fault.js';
 import { outputRefusal, SITE_MARKER, SITE_MARKER_TEXT } from '../io/output-folder.js';
@@ -17,7 +18,7 @@ import { PACKAGE_ROOT } from '../site/plugin.js';
 import { findBrowser, HOW_TO_GET_PDFS, type FoundBrowser } from '../pdf/discover.js';
 import { printAll } from '../pdf/print.js';
 import { printJobs, withPdfLinks } from '../pdf/jobs.js';
-import { parseArgs, UsageError, type FlagSpec } from './args.js';
+import { parseArgs, UsageError, type FlagSpec, type ParsedArgs } from './args.js';
 import { EXIT, type Command } from './command.js';
 import { progress } from './progress.js';
 import { painter, type Terminal } from './terminal.js';
@@ -47,8 +48,12 @@ export interface BuildOptions {
 }
 
 export function buildOptions(argv: readonly string[], t: Terminal, flags: readonly FlagSpec[] = BUILD_FLAGS): BuildOptions & { flags: Map<string, string | true> } {
-  const args = parseArgs(argv, flags);
-  if (args.positionals.length > 1) throw new UsageError('build takes at most one content folder');
+  return buildOptionsOf(parseArgs(argv, flags), t);
+}
+
+/** Build options from parsed arguments (serve parses its own, with more flags). */
+export function buildOptionsOf(args: ParsedArgs, t: Terminal): BuildOptions & { flags: Map<string, string | true> } {
+  if (args.positionals.length > 1) throw new UsageError('takes at most one content folder');
   const content = resolve(t.cwd, args.positionals[0] ?? 'content');
   const out = resolve(t.cwd, (args.flags.get('out') as string | undefined) ?? '_site');
   const cacheFlag = args.flags.get('cache');
@@ -89,7 +94,7 @@ async function buildAndPublish(o: BuildOptions, t: Terminal, started: number): P
   const built = await buildCatalog(o.content, {
     version: packageVersion(),
     cacheDir: o.cacheDir,
-    onPart: (done, total, slug) => bar.update(`parts ${done}/${total}  ${slug}`),
+    onPart: (done, total, slug) => bar.update(`parts ${done}/${total}  ${printable(slug)}`),
   });
   bar.done();
   await closePlotPool();
@@ -133,7 +138,7 @@ async function buildAndPublish(o: BuildOptions, t: Terminal, started: number): P
         onDone: (done, total) => bar.update(`PDFs ${done}/${total}`),
       });
       bar.done();
-      for (const r of report.refused) t.stderr.write(`${p.yellow('warning:')} ${r.page} asked for ${r.url}, which was refused: pages may load only files of the site\n`);
+      for (const r of report.refused) t.stderr.write(`${p.yellow('warning:')} ${printable(r.page)} asked for ${printable(r.url)}, which was refused: pages may load only files of the site\n`);
       const rate = report.printed / Math.max(report.printMs / 1000, 1e-3);
       pdfNote = `, ${report.printed} PDF${report.printed === 1 ? '' : 's'} (${rate.toFixed(1)} per second after the browser started)`;
     }

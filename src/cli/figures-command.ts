@@ -5,6 +5,7 @@
 import { dirname, resolve } from 'node:path';
 import type { CheckResult, PartResult } from '../evaluate/evaluate.js';
 import { figuresJson } from '../evaluate/json.js';
+import { printable } from '../format/escape.js';
 import { formatFrequency } from '../format/units.js';
 import { formatLimit, formatValue } from '../format/values.js';
 import { evaluatePartFile } from '../pipeline/part.js';
@@ -32,12 +33,12 @@ function pad(s: string, width: number): string {
 export function figuresTable(r: PartResult, p: Painter): string {
   const head = ['figure', 'on', 'band', 'limit', 'typical', 'worst', 'at', 'margin', ''];
   const rows = r.results.map((c) => [
-    c.label,
-    c.on.join(' '),
-    c.band,
+    printable(c.label),
+    printable(c.on.join(' ')),
+    printable(c.band),
     formatLimit(c.limit, c.unit),
     formatValue(c.typical, c.unit),
-    `${formatValue(c.worst, c.unit)} (${c.worstUnit})`,
+    `${formatValue(c.worst, c.unit)} (${printable(c.worstUnit)})`,
     c.worstAtHz === null ? '—' : formatFrequency(c.worstAtHz),
     c.margin === null ? '—' : formatValue(c.margin, c.unit),
     verdict(c, p),
@@ -45,7 +46,7 @@ export function figuresTable(r: PartResult, p: Painter): string {
   const widths = head.map((h, i) => Math.max(h.length, ...rows.map((row) => row[i].replace(/\x1b\[[0-9;]*m/g, '').length)));
   const line = (cells: string[]) => cells.map((c, i) => pad(c, widths[i])).join('  ').trimEnd();
   const total = r.pass ? p.green('PASS') : p.red('FAIL');
-  return [`${p.bold(r.part)} revision ${r.revision || '—'}: ${total}`, '', p.bold(line(head)), ...rows.map(line)].join('\n') + '\n';
+  return [`${p.bold(printable(r.part))} revision ${printable(r.revision) || '—'}: ${total}`, '', p.bold(line(head)), ...rows.map(line)].join('\n') + '\n';
 }
 
 export const figuresCommand: Command = {

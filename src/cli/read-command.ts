@@ -7,6 +7,7 @@ import { ieee370Quality } from '../network/ieee370.js';
 import { passivity, reciprocity } from '../network/quality.js';
 import { formatDiagnostic } from '../touchstone/diagnostics.js';
 import type { TouchstoneData } from '../touchstone/normalize.js';
+import { printable } from '../format/escape.js';
 import { formatFrequency, trimNumber } from '../format/units.js';
 import { parseArgs, UsageError, type FlagSpec } from './args.js';
 import { EXIT, type Command } from './command.js';
@@ -64,7 +65,7 @@ export function readSummary(name: string, data: TouchstoneData, t: Terminal): st
   const info = data.info;
   const lines: string[] = [];
   const row = (label: string, text: string) => lines.push(`${label.padEnd(13)}${text}`);
-  lines.push(p.bold(name));
+  lines.push(p.bold(printable(name)));
   row('format', `Touchstone ${info.version}, ${info.parameter}-parameters as ${info.format}, frequencies in ${info.frequencyUnit}${info.parameter !== 'S' ? ' (converted to S)' : ''}`);
   row('ports', String(net.ports) + (info.mixedModeOrder ? `, mixed-mode order ${info.mixedModeOrder.join(' ')}` : ''));
   row('points', `${k}, ${formatFrequency(net.freqHz[0])} to ${formatFrequency(net.freqHz[k - 1])}`);
@@ -109,9 +110,9 @@ export const readCommand: Command = {
     }
     const file = args.positionals[0];
     const result = readTouchstoneFile(resolve(t.cwd, file), { ports });
-    for (const w of result.warnings) t.stderr.write(`${formatDiagnostic(file, w).replace(/^([^ ]*:) /, '$1 warning: ')}\n`);
+    for (const w of result.warnings) t.stderr.write(`${formatDiagnostic(file, w, 'warning')}\n`);
     if (!result.value) {
-      for (const e of result.errors) t.stderr.write(`${formatDiagnostic(file, e).replace(/^([^ ]*:) /, '$1 error: ')}\n`);
+      for (const e of result.errors) t.stderr.write(`${formatDiagnostic(file, e, 'error')}\n`);
       return EXIT.badInput;
     }
     t.stdout.write(args.flags.has('json') ? readJson(result.value) : readSummary(file, result.value, t));

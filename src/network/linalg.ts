@@ -263,15 +263,15 @@ export function singularValues(src: Float64Array, off: number, n: number, work: 
 
 /**
  * Largest singular value (the spectral norm) of the complex n×n matrix at
- * `src[off…]`. A 2×2 has it in closed form: λmax of SᴴS = (tr + √(tr² − 4·det))/2.
+ * `src[off…]`. A 2×2 has it in closed form: λmax of SᴴS = (tr + √(tr² − 4·det))/2 = (a + d + √((a − d)² + 4|b|²))/2.
  */
 export function spectralNorm(src: Float64Array, off: number, n: number, work: Float64Array = new Float64Array(2 * n * n)): number {
   if (n === 1) return Math.hypot(src[off], src[off + 1]);
   if (n === 2) {
     gram(src, off, 2, work);
     const a = work[0], d = work[6], br = work[2], bi = work[3];
-    const tr = a + d, det = a * d - (br * br + bi * bi);
-    return Math.sqrt(Math.max(0, (tr + Math.sqrt(Math.max(0, tr * tr - 4 * det))) / 2));
+    // tr² − 4·det written as (a − d)² + 4|b|²: no cancellation when the two singular values are close
+    return Math.sqrt((a + d + Math.hypot(a - d, 2 * Math.hypot(br, bi))) / 2);
   }
   return singularValues(src, off, n, work)[0];
 }

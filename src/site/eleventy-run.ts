@@ -10,5 +10,18 @@ export async function writeSite(content: string, catalog: Catalog, outDir: strin
   // Eleventy prints a summary line even in quiet mode; scatterbook prints its own. Its errors still throw from write().
   const quiet = { log() {}, info() {}, warn() {}, error() {} };
   (elev as unknown as { logger: { overrideLogger(l: unknown): void } }).logger.overrideLogger(quiet);
-  await elev.write();
+  // When two of Eleventy's writes fail at once (a full disk), one rejection is left unhandled and would end
+  // the process; it is caught here and thrown as this write's error instead.
+  const stray: unknown[] = [];
+  const onStray = (e: unknown) => stray.push(e);
+  process.on('unhandledRejection', onStray);
+  try {
+    await elev.write();
+    await new Promise((r) => setImmediate(r));
+  } catch (e) {
+    stray.unshift(e);
+  } finally {
+    process.off('unhandledRejection', onStray);
+  }
+  if (stray.length) throw stray[0];
 }

@@ -65,10 +65,10 @@ export function scatterbookSite(config: UserConfig, options: SitePluginOptions):
   for (const f of fontFiles()) config.addPassthroughCopy({ [f.from]: f.to });
   // the vendor's assets: regular files only, never a link out of the content folder (see io/assets.ts)
   config.on('eleventy.after', (...args: unknown[]) => {
-    const { dir } = args[0] as { dir: { output: string } };
+    const { directories } = args[0] as { directories: { output: string } };
     const plan = planAssets(options.content);
     if (plan.errors.length) throw new Error(plan.errors.join('\n'));
-    copyAssets(plan, dir.output);
+    copyAssets(plan, resolve(directories.output));
   });
   // Eleventy reads watch targets relative to the working folder
   config.addWatchTarget(relative(process.cwd(), options.content) || '.');

@@ -3,6 +3,8 @@
  * set, the file, a 1-based line and column (0 when the file as a whole is
  * meant), and a message saying what was wrong and what was expected.
  */
+import { printable } from '../format/escape.js';
+
 export type SpecErrorCode =
   | 'yaml-syntax'
   | 'unknown-key'
@@ -45,11 +47,11 @@ export const NOWHERE: Position = { line: 0, column: 0 };
 
 /** `FILE:LINE:COL: error: message`, then the source line and a caret under the fault when the text is known. */
 export function formatSpecError(e: SpecError, source?: string): string {
-  const where = e.line > 0 ? `${e.file}:${e.line}:${e.column}` : e.file;
-  let out = `${where}: error: ${e.message}`;
+  const where = e.line > 0 ? `${printable(e.file)}:${e.line}:${e.column}` : printable(e.file);
+  let out = `${where}: error: ${printable(e.message)}`;
   if (source && e.line > 0) {
     const text = source.split(/\r?\n/)[e.line - 1];
-    if (text !== undefined) out += `\n  ${text}\n  ${' '.repeat(Math.max(0, e.column - 1))}^`;
+    if (text !== undefined) out += `\n  ${printable(text)}\n  ${' '.repeat(Math.max(0, e.column - 1))}^`;
   }
   return out;
 }

@@ -290,12 +290,14 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
     const bandCtx = band ?? { fromHz: 0, toHz: 0 };
     if (kind === 'limit') {
       const max = value('max'), min = value('min'), nom = value('nominal'), tol = value('tolerance');
-      const hasTol = e.tolerance !== undefined;
-      if (e.max === undefined && e.min === undefined && !hasTol) {
+      // a key written with a value the schema refused counts as given: its own error says what is wrong
+      const written = (k: string) => e[k] !== undefined || input.positions.has(`${path}#${k}`);
+      const hasTol = written('tolerance');
+      if (!written('max') && !written('min') && !hasTol) {
         err('bad-limit', path, `limit on ${figure.id} gives no max, min or tolerance; expected max, min, both, or nominal ± tolerance (to report a figure without a limit, list it under report:)`);
-      } else if (hasTol && (e.max !== undefined || e.min !== undefined)) {
+      } else if (hasTol && (written('max') || written('min'))) {
         err('bad-limit', path, `limit on ${figure.id} mixes tolerance with max/min; give either max/min or nominal ± tolerance`);
-      } else if (e.nominal !== undefined && !hasTol) {
+      } else if (written('nominal') && !hasTol) {
         err('bad-limit', `${path}.nominal`, `nominal without tolerance: give tolerance, the half-width of the allowed window`);
       } else if (hasTol) {
         const n = nom ?? figure.defaultNominal?.({ part: partCtx, band: bandCtx });

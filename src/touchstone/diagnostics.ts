@@ -3,6 +3,8 @@
  * set, a 1-based line (0 when the problem is the file as a whole), an optional
  * 1-based column, and a message that says what was wrong and what was expected.
  */
+import { printable } from '../format/escape.js';
+
 export type TouchstoneErrorCode =
   | 'not-text'
   | 'bad-number'
@@ -44,9 +46,9 @@ export type TouchstoneError = TouchstoneDiagnostic<TouchstoneErrorCode>;
 export type TouchstoneWarning = TouchstoneDiagnostic<TouchstoneWarningCode>;
 
 /** `FILE:LINE: message` (or `FILE:LINE:COL: message`; `FILE: message` for whole-file problems). */
-export function formatDiagnostic(fileName: string, d: TouchstoneDiagnostic): string {
-  if (d.line <= 0) return `${fileName}: ${d.message}`;
-  return d.column ? `${fileName}:${d.line}:${d.column}: ${d.message}` : `${fileName}:${d.line}: ${d.message}`;
+export function formatDiagnostic(fileName: string, d: TouchstoneDiagnostic, severity?: 'error' | 'warning'): string {
+  const where = d.line <= 0 ? fileName : d.column ? `${fileName}:${d.line}:${d.column}` : `${fileName}:${d.line}`;
+  return `${printable(where)}: ${severity ? `${severity}: ` : ''}${printable(d.message)}`;
 }
 
 /** Thrown inside the parser to stop at the first error; never escapes it. */

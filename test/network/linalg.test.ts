@@ -48,7 +48,7 @@ describe('singular values', () => {
         for (let i = 1; i < n; i++) expect(sv[i]).toBeLessThanOrEqual(sv[i - 1]);
         expect(Math.abs(spectralNorm(m, 0, n) - sv[0])).toBeLessThanOrEqual(1e-12 * Math.max(1, sv[0]));
       }),
-      { numRuns: 300 },
+      { numRuns: 300, seed: 370 }, // a fixed seed: CI runs the same matrices every time
     );
   });
 });

@@ -215,8 +215,10 @@ function checkOutcome(bytes: Uint8Array, name: string): void {
   const e = r.errors[0];
   expect(CODES.has(e.code)).toBe(true);
   expect(e.message.length).toBeGreaterThan(10);
+  // lines end in LF; a text with CR but no LF is read with CR as the line end (classic Mac OS files)
+  const end = bytes.includes(10) || !bytes.includes(13) ? 10 : 13;
   let lines = 1;
-  for (const b of bytes) if (b === 10) lines++;
+  for (const b of bytes) if (b === end) lines++;
   expect(e.line).toBeGreaterThanOrEqual(0);
   expect(e.line).toBeLessThanOrEqual(lines);
 }
