@@ -31,6 +31,7 @@ export const BUILD_FLAGS: FlagSpec[] = [
   { name: 'browser', value: true, help: 'the Chromium-family browser that prints PDFs (or set SCATTERBOOK_BROWSER)' },
   { name: 'no-cache', help: 'recompute every part (by default unchanged parts come from the cache)' },
   { name: 'cache', value: true, help: 'the cache folder (default .scatterbook-cache beside the output)' },
+  { name: 'strict', help: 'exit 3 when a published part fails a limit (the site is still written)' },
 ];
 
 export function packageVersion(): string {
@@ -63,13 +64,23 @@ export function buildOptionsOf(args: ParsedArgs, t: Terminal): BuildOptions & { 
   return { content, out, keepGoing: args.flags.has('keep-going'), cacheDir, pdf, browser: args.flags.get('browser') as string | undefined, flags: args.flags };
 }
 
-export async function runBuild(o: BuildOptions, t: Terminal): Promise<{ code: 0 | 1; parts: number; failed: number; ms: number }> {
+export interface BuildOutcome {
+  readonly code: 0 | 1;
+  readonly parts: number;
+  /** Parts left out with errors. */
+  readonly failed: number;
+  /** Published parts that fail a limit. */
+  readonly failing: number;
+  readonly ms: number;
+}
+
+export async function runBuild(o: BuildOptions, t: Terminal): Promise<BuildOutcome> {
   const p = painter(t.stderr, t.env);
   const started = performance.now();
   const rel = (x: string) => relative(t.cwd, x) || '.';
   const fail = (message: string) => {
     t.stderr.write(`${p.red('error:')} ${message}\n`);
-    return { code: 1 as const, parts: 0, failed: 0, ms: performance.now() - started };
+    return { code: 1 as const, parts: 0, failed: 0, failing: 0, ms: performance.now() - started };
   };
   const shownOut = rel(o.out).startsWith('..') ? o.out : rel(o.out);
   const refusal = outputRefusal(o.out, { content: o.content, cwd: t.cwd, home: t.env.HOME }, shownOut);
@@ -87,7 +98,7 @@ export async function runBuild(o: BuildOptions, t: Terminal): Promise<{ code: 0 
   }
 }
 
-async function buildAndPublish(o: BuildOptions, t: Terminal, started: number): Promise<{ code: 0 | 1; parts: number; failed: number; ms: number }> {
+async function buildAndPublish(o: BuildOptions, t: Terminal, started: number): Promise<BuildOutcome> {
   const p = painter(t.stderr, t.env);
   const bar = progress(t);
   const rel = (x: string) => relative(t.cwd, x) || '.';
@@ -106,7 +117,7 @@ async function buildAndPublish(o: BuildOptions, t: Terminal, started: number): P
     const files = catalog.failures.length + siteErrors.length;
     const why = catalog.parts.length === 0 && !catalog.failures.length && !siteErrors.length ? `no parts found: expected ${rel(join(o.content, 'parts'))}/<slug>/part.yaml` : `${files} file${files === 1 ? '' : 's'} with errors`;
     t.stderr.write(`${p.red('error:')} ${why}; nothing was written (${rel(o.out)} is unchanged)${catalog.failures.length && !o.keepGoing ? '; --keep-going publishes the parts that build' : ''}\n`);
-    return { code: 1, parts: catalog.parts.length, failed: catalog.failures.length, ms: performance.now() - started };
+    return { code: 1, parts: catalog.parts.length, failed: catalog.failures.length, failing: 0, ms: performance.now() - started };
   }
   // PDFs need a browser; look for it before the pages are written, since they link their PDFs
   let found: FoundBrowser | null = null;
@@ -115,11 +126,11 @@ async function buildAndPublish(o: BuildOptions, t: Terminal, started: number): P
     if ('missing' in f) {
       if ('named' in f) {
         t.stderr.write(`${p.red('error:')} ${f.missing}; name a Chromium-family browser, or pass --no-pdf; nothing was written (${rel(o.out)} is unchanged)\n`);
-        return { code: 1, parts: catalog.parts.length, failed: catalog.failures.length, ms: performance.now() - started };
+        return { code: 1, parts: catalog.parts.length, failed: catalog.failures.length, failing: 0, ms: performance.now() - started };
       }
       if (o.pdf === 'required') {
         t.stderr.write(`${p.red('error:')} PDFs are required (--pdf) but ${f.missing}; ${HOW_TO_GET_PDFS}; nothing was written (${rel(o.out)} is unchanged)\n`);
-        return { code: 1, parts: catalog.parts.length, failed: catalog.failures.length, ms: performance.now() - started };
+        return { code: 1, parts: catalog.parts.length, failed: catalog.failures.length, failing: 0, ms: performance.now() - started };
       }
       t.stderr.write(`${p.yellow('note:')} ${f.missing}, so the site is built without PDFs; ${HOW_TO_GET_PDFS}\n`);
     } else found = f;
@@ -151,20 +162,29 @@ async function buildAndPublish(o: BuildOptions, t: Terminal, started: number): P
   }
   const ms = performance.now() - started;
   const failed = catalog.failures.length;
+  let failing = 0;
+  for (const page of catalog.parts) {
+    const rows = page.compliance.filter((r) => r.verdict === 'FAIL');
+    if (rows.length) failing++;
+    for (const r of rows) {
+      t.stderr.write(`${p.yellow('warning:')} ${printable(page.part)} fails ${printable(r.label)} on ${printable(r.on)} over ${printable(r.band)}: worst ${r.worst.text} (${printable(r.worstUnit)}${r.at.value !== null ? ` at ${r.at.text}` : ''}) against ${r.limit}\n`);
+    }
+  }
   t.stdout.write(
     `built ${catalog.parts.length} part${catalog.parts.length === 1 ? '' : 's'}${pdfNote}${failed ? `, ${failed} left out with errors` : ''}${built.cacheHits ? ` (${built.cacheHits} unchanged, from the cache)` : ''} into ${rel(o.out)}/ in ${(ms / 1000).toFixed(1)} s; open ${rel(join(o.out, 'index.html'))}\n`,
   );
-  return { code: failed ? 1 : 0, parts: catalog.parts.length, failed, ms };
+  return { code: failed ? 1 : 0, parts: catalog.parts.length, failed, failing, ms };
 }
 
 export const buildCommand: Command = {
   name: 'build',
   summary: 'build the datasheet site and PDFs of a content folder (default content/) into _site/',
-  usage: 'scatterbook build [CONTENT_DIR] [--out DIR] [--keep-going] [--no-pdf | --pdf] [--browser PATH] [--no-cache] [--cache DIR]',
+  usage: 'scatterbook build [CONTENT_DIR] [--out DIR] [--keep-going] [--strict] [--no-pdf | --pdf] [--browser PATH] [--no-cache] [--cache DIR]',
   flags: BUILD_FLAGS,
   async run(argv, t) {
     const o = buildOptions(argv, t);
     const r = await runBuild(o, t);
-    return r.code === 0 ? EXIT.ok : EXIT.badInput;
+    if (r.code !== 0) return EXIT.badInput;
+    return o.flags.has('strict') && r.failing > 0 ? EXIT.limitFailed : EXIT.ok;
   },
 };

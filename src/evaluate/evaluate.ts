@@ -8,8 +8,9 @@
  *   the first item. Without a limit, the figure's bad direction decides
  *   (highest insertion loss, lowest return loss, furthest from nominal).
  * - A result's worst: the unit worst with the least margin (ties: lowest
- *   frequency, then the first unit); typical: the median of the unit worsts;
- *   pass: every unit's margin ≥ 0.
+ *   frequency, then the first unit); typical: the worst of the median unit
+ *   when the units are ranked by margin (typicalOf); pass: every unit's
+ *   margin ≥ 0.
  * - `when` restricts a check to the units whose conditions match.
  */
 import { FigureUndefined, type FigureContext, type Item } from '../figures/types.js';
@@ -20,7 +21,6 @@ import type { Limit, NormalizedCheck, NormalizedPart } from '../spec/normalize.j
 import { parameterName } from '../spec/parameter.js';
 import { bandSet } from './band.js';
 import { itemOnNetwork } from './mixed.js';
-import { median } from './stats.js';
 
 export interface UnitData {
   readonly unit: string;
@@ -54,6 +54,12 @@ export interface CheckResult {
   readonly worstUnit: string;
   readonly worstOn: string;
   readonly typical: number;
+  /** The unit whose worst is the typical value. */
+  readonly typicalUnit: string;
+  /** The conditions typical is quoted at (the part's typical-at, where the check has such units), or null: all its units. */
+  readonly typicalAt: Readonly<Record<string, string>> | null;
+  /** The units typical was taken from were measured under different conditions. */
+  readonly typicalMixed: boolean;
   readonly margin: number | null;
   readonly pass: boolean | null;
   readonly units: readonly UnitResult[];
@@ -209,11 +215,37 @@ function evaluateCheck(part: NormalizedPart, check: NormalizedCheck, all: readon
     worstAtHz: worst.atHz,
     worstUnit: worst.unit,
     worstOn: worst.worstOn,
-    typical: median(unitResults.map((r) => r.worst)),
+    ...typicalOf(unitResults, units, score, part.typicalAt),
     margin: worst.margin,
     pass: limit ? unitResults.every((r) => r.pass === true) : null,
     units: unitResults,
   };
+}
+
+/**
+ * Typical: rank the units by margin (by the bad direction without a limit),
+ * least first; typical is the worst value of the median unit, and for an even
+ * count the one of the two middle units with the smaller margin. Ranking by
+ * margin rather than taking the median of the signed worsts keeps units that
+ * err on opposite sides of a two-sided limit from cancelling. With
+ * `typical-at`, only the units measured under those conditions are ranked
+ * (when the check has such units).
+ */
+export function typicalOf(
+  results: readonly UnitResult[],
+  units: readonly UnitData[],
+  score: (v: number) => number,
+  at: Readonly<Record<string, string>> | null,
+): { typical: number; typicalUnit: string; typicalAt: Readonly<Record<string, string>> | null; typicalMixed: boolean } {
+  const matches = (u: UnitData) => at !== null && Object.entries(at).every(([k, v]) => u.conditions[k] === v);
+  const restricted = at !== null && units.some(matches);
+  const pool = results.map((r, i) => ({ r, i, u: units[i] })).filter((x) => !restricted || matches(x.u));
+  const order = (x: number, y: number) => (x < y ? -1 : x > y ? 1 : 0);
+  const ranked = pool.slice().sort((a, b) => order(score(a.r.worst), score(b.r.worst)) || a.i - b.i);
+  const mid = ranked[Math.ceil(ranked.length / 2) - 1];
+  const condition = (u: UnitData) => JSON.stringify(Object.entries(u.conditions).sort());
+  const typicalMixed = new Set(pool.map((x) => condition(x.u))).size > 1;
+  return { typical: mid.r.worst, typicalUnit: mid.r.unit, typicalAt: restricted ? at : null, typicalMixed };
 }
 
 function evaluateItem(

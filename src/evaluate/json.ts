@@ -1,6 +1,19 @@
 /** The result of a part as `scatterbook figures --json` prints it: exactly the documented keys, in order. */
 import type { PartResult } from './evaluate.js';
 
+/**
+ * A number as the JSON carries it: finite numbers as they are; ±∞ (the VSWR
+ * of a total reflection, a margin against it) as the strings "Infinity" and
+ * "-Infinity", which JSON can carry and JSON.stringify would turn into null.
+ */
+export type JsonNumber = number | 'Infinity' | '-Infinity' | null;
+export function jsonNumber(v: number | null): JsonNumber {
+  if (v === null || Number.isFinite(v)) return v;
+  return v > 0 ? 'Infinity' : v < 0 ? '-Infinity' : null;
+}
+
+const limitJson = (l: PartResult['results'][number]['limit']) => (l ? Object.fromEntries(Object.entries(l).map(([k, v]) => [k, jsonNumber(v as number)])) : null);
+
 /** The JSON of `figures --json`: exactly the documented keys. */
 export function figuresJson(r: PartResult): object {
   return {
@@ -14,15 +27,16 @@ export function figuresJson(r: PartResult): object {
       fromHz: c.fromHz,
       toHz: c.toHz,
       unit: c.unit,
-      limit: c.limit,
-      worst: c.worst,
+      limit: limitJson(c.limit),
+      worst: jsonNumber(c.worst),
       worstAtHz: c.worstAtHz,
       worstUnit: c.worstUnit,
       worstOn: c.worstOn,
-      typical: c.typical,
-      margin: c.margin,
+      typical: jsonNumber(c.typical),
+      typicalUnit: c.typicalUnit,
+      margin: jsonNumber(c.margin),
       pass: c.pass,
-      units: c.units.map((u) => ({ unit: u.unit, worst: u.worst, atHz: u.atHz, margin: u.margin, pass: u.pass })),
+      units: c.units.map((u) => ({ unit: u.unit, worst: jsonNumber(u.worst), atHz: u.atHz, margin: jsonNumber(u.margin), pass: u.pass })),
     })),
   };
 }

@@ -38,7 +38,10 @@ export function interpolateAt(x: Float64Array, y: Float64Array, f: number): numb
   if (f === x[i]) return y[i];
   if (f === x[i + 1]) return y[i + 1];
   const t = (f - x[i]) / (x[i + 1] - x[i]);
-  return y[i] + t * (y[i + 1] - y[i]);
+  const a = y[i], b = y[i + 1];
+  // strictly between a finite value and ±∞ the line is ±∞ (its limit), not ∞·0 or ∞ − ∞ = NaN
+  if (!Number.isFinite(a) || !Number.isFinite(b)) return Number.isFinite(a) ? b : Number.isFinite(b) || a === b ? a : NaN;
+  return a + t * (b - a);
 }
 
 export function interpolate(net: Network, freqHz: Float64Array, method: InterpolationMethod = 'polar'): Network {

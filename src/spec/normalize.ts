@@ -81,6 +81,8 @@ export interface NormalizedPart {
   readonly mixedModePairs: ReadonlyArray<readonly [number, number]> | null;
   readonly mixedModeAt: Position;
   readonly measurements: readonly NormalizedMeasurement[];
+  /** typical-at: the conditions typical values are quoted at, or null (all units). */
+  readonly typicalAt: Readonly<Record<string, string>> | null;
   readonly bands: ReadonlyMap<string, NormalizedBand>;
   readonly checks: readonly NormalizedCheck[];
   readonly ratings: ReadonlyArray<{ readonly parameter: string; readonly value: string; readonly notes: string | null }>;
@@ -169,6 +171,17 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
   for (const [i, m] of measurements.entries()) {
     const conds = Object.values(m.conditions);
     if ((count.get(m.unit) ?? 0) > 1 && conds.length) measurements[i] = { ...m, label: `${m.unit} @ ${conds.join(', ')}` };
+  }
+
+  // the conditions typical values are quoted at
+  let typicalAt: Record<string, string> | null = null;
+  if (isObj(spec['typical-at'])) {
+    typicalAt = {};
+    for (const [k, v] of Object.entries(spec['typical-at'])) typicalAt[k] = conditionText(v);
+    const wanted = typicalAt;
+    if (!measurements.some((m) => Object.entries(wanted).every(([k, v]) => m.conditions[k] === v))) {
+      err('unknown-condition', 'typical-at', `no measured unit has the conditions of typical-at (${Object.entries(wanted).map(([k, v]) => `${k}: ${v}`).join(', ')}); typical values must come from measured units`);
+    }
   }
 
   // custom figures
@@ -381,6 +394,7 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
     mixedModePairs,
     mixedModeAt: at('mixed-mode'),
     measurements,
+    typicalAt,
     bands,
     checks,
     ratings,

@@ -87,6 +87,7 @@ export const PART_SCHEMA: Schema = {
         },
       },
     },
+    'typical-at': { ...conditions, description: 'the conditions typical values are quoted at, e.g. {temperature: 25 °C}: typical comes from the units measured there, limits still from every unit they cover' },
     measurements: {
       t: 'array',
       minItems: 1,

@@ -5,7 +5,8 @@
  * overridden from the content folder's _includes/.
  */
 import { spawnSync } from 'node:child_process';
-import { cpSync, existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
+import { createHash } from 'node:crypto';
+import { cpSync, existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, statSync, symlinkSync, utimesSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
@@ -37,7 +38,7 @@ describe('scatterbook build', () => {
     const r = run(['build', 'ok', '--out', 'site-ok', '--no-cache', '--no-pdf']);
     expect(r.status).toBe(0);
     expect(r.stdout).toMatch(/^built 2 parts into site-ok\/ in [\d.]+ s; open site-ok\/index\.html\n$/);
-    expect(r.stderr).toBe('');
+    expect(r.stderr).toMatch(/^warning: VT-ATT-10 fails Attenuation/); // its damaged unit (see below)
     expect(readdirSync(join(dir, 'site-ok/parts')).sort()).toEqual(['vt-att-10', 'vt-cbl-150']);
     expect(existsSync(join(dir, 'site-ok/assets/scatterbook.css'))).toBe(true);
   });
@@ -107,6 +108,56 @@ describe('scatterbook build', () => {
     const r = run(args);
     expect(r.stdout).toContain('(1 unchanged, from the cache)');
     expect(readFileSync(join(dir, 'site-cache/parts/vt-cbl-150/index.html'), 'utf8')).toContain('≤ 5.30 dB');
+  });
+
+  it('the cache never serves a stale page: an edit in place with the same size and time, site settings, template overrides', () => {
+    const c = content('stale');
+    const data = join(c, 'parts/vt-att-10/data/sn2002.s2p');
+    utimesSync(data, 1_700_000_000, 1_700_000_000); // a whole second, which utimes sets exactly
+    const args = ['build', 'stale', '--out', 'site-stale', '--no-pdf', '--cache', 'cache-stale'];
+    expect(run(args).status).toBe(0);
+    expect(run(args).stdout).toContain('(2 unchanged, from the cache)');
+    // one digit of a data file changed, same length, modification time put back
+    const before = statSync(data);
+    const text = readFileSync(data, 'utf8');
+    const at = text.search(/\d\n\d/); // the last digit of the first data line: a value, not a frequency
+    writeFileSync(data, text.slice(0, at) + (text[at] === '9' ? '8' : '9') + text.slice(at + 1));
+    utimesSync(data, 1_700_000_000, 1_700_000_000);
+    expect(statSync(data).size).toBe(before.size);
+    expect(statSync(data).mtimeMs).toBe(before.mtimeMs);
+    expect(run(args).stdout).toContain('(1 unchanged, from the cache)');
+    const page = readFileSync(join(dir, 'site-stale/parts/vt-att-10/index.html'), 'utf8');
+    expect(page).toContain(createHash('sha256').update(readFileSync(data)).digest('hex'));
+    writeFileSync(join(c, 'site.yaml'), 'vendor: Another Name\n');
+    expect(run(args).stdout).not.toContain('from the cache');
+    mkdirSync(join(c, '_includes'));
+    writeFileSync(join(c, '_includes/ports.njk'), '<section class="ports"><h2 id="ports-title">Ports</h2></section>\n');
+    expect(run(args).stdout).not.toContain('from the cache');
+  });
+
+  it('a different build of scatterbook with the same version number misses the cache', () => {
+    // a copy of the installed tool: the same version, then one compiled file changed
+    const tool = join(dir, 'tool');
+    for (const p of ['bin', 'dist', 'src/site', 'package.json', '.eleventy.js']) cpSync(join(ROOT, p), join(tool, p), { recursive: true });
+    symlinkSync(join(ROOT, 'node_modules'), join(tool, 'node_modules'));
+    content('tooled');
+    const build = () => spawnSync(process.execPath, [join(tool, 'bin/scatterbook.js'), 'build', 'tooled', '--out', 'site-tool', '--no-pdf', '--cache', 'cache-tool'], { cwd: dir, encoding: 'utf8' }).stdout;
+    expect(build()).toMatch(/^built 2 parts/);
+    expect(build()).toContain('(2 unchanged, from the cache)');
+    const figures = join(tool, 'dist/evaluate/evaluate.js');
+    writeFileSync(figures, `${readFileSync(figures, 'utf8')}\n// a rebuilt scatterbook\n`);
+    expect(build()).not.toContain('from the cache');
+  });
+
+  it('a published part that fails a limit: a warning per failing limit on stderr; --strict exits 3 (the site is still written)', () => {
+    content('gate');
+    const r = run(['build', 'gate', '--out', 'site-gate', '--no-cache', '--no-pdf']);
+    expect(r.status).toBe(0);
+    // the demo attenuator's unit SN2003 has a chipped resistor: its attenuation leaves 10 dB ± 0.5 dB
+    expect(r.stderr).toMatch(/^warning: VT-ATT-10 fails Attenuation on S21 over full: worst 10\.65 dB \(SN2003 at [\d.]+ MHz\) against 10\.00 dB ± 0\.50 dB\n$/);
+    const strict = run(['build', 'gate', '--out', 'site-gate', '--no-cache', '--no-pdf', '--strict']);
+    expect(strict.status).toBe(3);
+    expect(existsSync(join(dir, 'site-gate/parts/vt-att-10/index.html'))).toBe(true);
   });
 
   it('an empty content folder is an error, and bad usage exits 2', () => {

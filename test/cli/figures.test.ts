@@ -46,7 +46,7 @@ describe('scatterbook figures', () => {
     const j = JSON.parse(r.stdout);
     expect(Object.keys(j)).toEqual(['part', 'revision', 'pass', 'results']);
     expect(j).toMatchObject({ part: 'T-FAIL', revision: 'C', pass: false });
-    expect(Object.keys(j.results[0])).toEqual(['figure', 'on', 'band', 'fromHz', 'toHz', 'unit', 'limit', 'worst', 'worstAtHz', 'worstUnit', 'worstOn', 'typical', 'margin', 'pass', 'units']);
+    expect(Object.keys(j.results[0])).toEqual(['figure', 'on', 'band', 'fromHz', 'toHz', 'unit', 'limit', 'worst', 'worstAtHz', 'worstUnit', 'worstOn', 'typical', 'typicalUnit', 'margin', 'pass', 'units']);
     expect(j.results[0]).toMatchObject({ figure: 'insertion-loss', on: ['S21'], band: 'pass', fromHz: 1e9, toHz: 2e9, unit: 'dB', limit: { max: 0.5 }, worstAtHz: 2e9, worstUnit: 'A1', worstOn: 'S21', pass: false });
     expect(j.results[0].worst).toBeCloseTo(0.7, 12);
     expect(j.results[0].margin).toBeCloseTo(-0.2, 12);

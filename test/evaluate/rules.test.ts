@@ -58,19 +58,52 @@ describe('worst, ties, typical', () => {
     expect(r.worstAtHz).toBe(2e9);
   });
 
-  it('typical is the median of the unit worsts (3 units: the middle one; 4 units: the mean of the middle two); worst is the least margin', () => {
+  it('typical is the worst of the median unit ranked by margin (3 units: the middle one; 4 units: the middle one with the smaller margin); worst is the least margin', () => {
     const units = { A: lossNet([[1e9, 1], [2e9, 1.2]]), B: lossNet([[1e9, 1.5], [2e9, 1.1]]), C: lossNet([[1e9, 0.9], [2e9, 2.4]]), D: lossNet([[1e9, 1.3], [2e9, 1.0]]) };
     const limits = '  - {figure: insertion-loss, on: S21, band: b, max: 2 dB}';
     const three = resultsOf(part([['A'], ['B'], ['C']], '  b: {from: 1 GHz, to: 2 GHz}', limits), units).results[0];
     expect(three.units.map((u) => u.worst.toFixed(6))).toEqual(['1.200000', '1.500000', '2.400000']);
     expect(three.typical).toBeCloseTo(1.5, 12);
+    expect(three.typicalUnit).toBe('B');
     expect(three.worst).toBeCloseTo(2.4, 12);
     expect(three.worstUnit).toBe('C');
     expect(three.margin).toBeCloseTo(-0.4, 12);
     expect(three.pass).toBe(false);
     expect(three.units.map((u) => u.pass)).toEqual([true, true, false]);
+    // worsts 1.2, 1.5, 2.4, 1.3 → margins 0.8, 0.5, −0.4, 0.7 → ranked C B D A; the middle two are B and D, B has the smaller margin
     const four = resultsOf(part([['A'], ['B'], ['C'], ['D']], '  b: {from: 1 GHz, to: 2 GHz}', limits), units).results[0];
-    expect(four.typical).toBeCloseTo((1.3 + 1.5) / 2, 12); // worsts 1.2, 1.5, 2.4, 1.3 → sorted 1.2 1.3 1.5 2.4
+    expect(four.typical).toBeCloseTo(1.5, 12);
+    expect(four.typicalUnit).toBe('B');
+  });
+
+  it('a two-sided limit: units that err on opposite sides do not cancel', () => {
+    // worsts 10.6, 9.3, 10.2 dB against 10 ± 1 dB: margins 0.4, 0.3, 0.8 → the median unit is A (10.6 dB, 0.6 dB off);
+    // the old median of signed worsts gave 10.2, which no unit's worst deviation is
+    const units = { A: lossNet([[1e9, 10.6], [2e9, 10.1]]), B: lossNet([[1e9, 9.3], [2e9, 9.9]]), C: lossNet([[1e9, 10.2], [2e9, 10.0]]) };
+    const r = resultsOf(part([['A'], ['B'], ['C']], '  b: {from: 1 GHz, to: 2 GHz}', '  - {figure: insertion-loss, on: S21, band: b, nominal: 10 dB, tolerance: 1 dB}'), units).results[0];
+    expect(r.typicalUnit).toBe('A');
+    expect(r.typical).toBeCloseTo(10.6, 12);
+  });
+
+  it('without a limit, units are ranked by the figure\'s bad direction', () => {
+    const units = { A: lossNet([[1e9, 1], [2e9, 1.2]]), B: lossNet([[1e9, 1.5], [2e9, 1.1]]), C: lossNet([[1e9, 0.9], [2e9, 2.4]]) };
+    const yaml = part([['A'], ['B'], ['C']], '  b: {from: 1 GHz, to: 2 GHz}', '  - {figure: insertion-loss, on: S21, band: b, max: 9 dB}').replace('limits:\n  - {figure: insertion-loss, on: S21, band: b, max: 9 dB}', 'report:\n  - {figure: insertion-loss, on: S21, band: b}');
+    const r = resultsOf(yaml, units).results[0];
+    expect(r.typical).toBeCloseTo(1.5, 12);
+    expect(r.typicalUnit).toBe('B');
+  });
+
+  it('typical-at: typical from the units measured there, the limit from every unit it covers', () => {
+    const units = { A: lossNet([[1e9, 1], [2e9, 1]]), B: lossNet([[1e9, 2], [2e9, 2]]), C: lossNet([[1e9, 3], [2e9, 3]]) };
+    const yaml = part([['A', '25 °C'], ['B', '85 °C'], ['C', '85 °C']], '  b: {from: 1 GHz, to: 2 GHz}', '  - {figure: insertion-loss, on: S21, band: b, max: 3.5 dB}');
+    const all = resultsOf(yaml, units).results[0];
+    expect(all.typical).toBeCloseTo(2, 12);
+    expect([all.typicalAt, all.typicalMixed]).toEqual([null, true]);
+    const at = resultsOf(`${yaml}typical-at: {temperature: 25 °C}\n`, units).results[0];
+    expect(at.typical).toBeCloseTo(1, 12);
+    expect([at.typicalUnit, at.typicalAt, at.typicalMixed, at.worstUnit]).toEqual(['A', { temperature: '25 °C' }, false, 'C']);
+    const none = evaluateYaml(`${yaml}typical-at: {temperature: 55 °C}\n`, units);
+    expect(none.errors[0]).toMatchObject({ code: 'unknown-condition' });
   });
 
   it('nominal ± tolerance: margin = tolerance − |value − nominal|', () => {
