@@ -37,8 +37,9 @@ describe('S ↔ Z ↔ Y (Pozar, Microwave Engineering, §4.3: Z = √R(I+S)(I−
 });
 
 describe('renormalization', () => {
-  // RF-NOTES check value: a matched 6 dB attenuator (S21 = 0.5012) renormalized 50 → 75 Ω gives
-  // S11 = −0.1513 and S21 = 0.4860 (computed from the definitions, not a published table).
+  // A matched 6 dB attenuator (S21 = 0.5012) renormalized 50 → 75 Ω gives S11 = −0.1513 and S21 = 0.4860:
+  // computed by hand from the power-wave renormalization S′ = A⁻¹(S − Γ)(I − ΓS)⁻¹A (Kurokawa, IEEE Trans. MTT 1965),
+  // not a published table.
   const a = Math.pow(10, -6 / 20);
   const pad = networkOf([1e9], 50, () => [[cx(0), cx(a)], [cx(a), cx(0)]]);
 

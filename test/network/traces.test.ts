@@ -6,7 +6,7 @@ import { expectClose, networkOf, cx, polar } from '../helpers.js';
 const oneport = (gammas: number[]) => networkOf(gammas.map((_, k) => 1e9 + k), 50, (_, k) => [[cx(gammas[k])]]);
 
 describe('return loss, VSWR and mismatch loss', () => {
-  // Check values computed from the definitions (shared/RF-NOTES.md table; RL = −20·log10|Γ|,
+  // Check values computed by hand from the definitions (RL = −20·log10|Γ|,
   // VSWR = (1+|Γ|)/(1−|Γ|), ML = −10·log10(1−|Γ|²), Pozar ch. 2, from memory).
   const table = [
     { rl: 6, gamma: 0.5012, vswr: 3.01, ml: 1.256 },
@@ -40,7 +40,7 @@ describe('return loss, VSWR and mismatch loss', () => {
 });
 
 describe('phase and group delay of a lossless line', () => {
-  // S21 = e^(−jβl), β = 2πf/v: a 1 m air line delays by l/c = 3.33564 ns (RF-NOTES check values);
+  // S21 = e^(−jβl), β = 2πf/v: a 1 m air line delays by l/c = 3.33564 ns (c = 299 792 458 m/s exactly, by the SI definition of the metre);
   // at εr = 2.1, by √2.1·l/c = 4.8338 ns.
   const c0 = 299_792_458;
   const line = (len: number, er: number, freqs: number[]) =>

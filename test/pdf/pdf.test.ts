@@ -73,13 +73,29 @@ describe.skipIf(!haveBrowser || !havePoppler)('PDF datasheets', () => {
         expect(text, `${part} page ${p}`).toContain(part);
         expect(text).toContain(`page ${p} of ${pages}`);
       }
-      // every number of the compliance table, as the table formats it
-      const all = execFileSync('pdftotext', [pdf, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
+      // every number of the compliance table, as the table formats it: whole tokens ("0.25" does not match
+      // "10.25"), in table order from the table's heading on (typical, worst, margin of each row, then the
+      // worst and margin of each of its units), so each is found in its own row, not anywhere in the document
+      const layout = execFileSync('pdftotext', ['-layout', pdf, '-'], { encoding: 'utf8' });
+      const table = layout.slice(layout.search(/^\s*Compliance\s*$/m)).replace(/\s+/g, ' ');
+      expect(table.length).toBeGreaterThan(20);
       const json = JSON.parse(execFileSync(process.execPath, [BIN, 'figures', join(ROOT, 'content/parts', slug, 'part.yaml'), '--json'], { encoding: 'utf8' }));
-      for (const r of json.results) {
-        for (const v of [r.typical, r.worst, r.margin, ...r.units.flatMap((u: { worst: number; margin: number | null }) => [u.worst, u.margin])]) {
-          if (v === null) continue;
-          expect(all, `${part} ${r.figure}`).toContain(formatValue(v, r.unit));
+      let pos = 0;
+      const next = (v: number, unit: string, what: string) => {
+        const text = formatValue(v, unit);
+        const re = new RegExp(`(?<=^| )${text.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}(?= |$)`, 'g');
+        re.lastIndex = pos;
+        const m = re.exec(table);
+        expect(m, `${part} ${what}: ${text} after position ${pos}`).not.toBeNull();
+        pos = (m as RegExpExecArray).index + text.length;
+      };
+      for (const r of json.results as Array<{ figure: string; unit: string; typical: number; worst: number; margin: number | null; units: Array<{ unit: string; worst: number; margin: number | null }> }>) {
+        next(r.typical, r.unit, `${r.figure} typical`);
+        next(r.worst, r.unit, `${r.figure} worst`);
+        if (r.margin !== null) next(r.margin, r.unit, `${r.figure} margin`);
+        for (const u of r.units) {
+          next(u.worst, r.unit, `${r.figure} ${u.unit} worst`);
+          if (u.margin !== null) next(u.margin, r.unit, `${r.figure} ${u.unit} margin`);
         }
       }
       // no word outside the page box

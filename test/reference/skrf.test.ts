@@ -25,15 +25,11 @@ import { sToAbcd } from '../../src/network/twoport.js';
 import { writeTouchstone } from '../../src/touchstone/write.js';
 import type { TouchstoneData } from '../../src/touchstone/normalize.js';
 import { resultsOf } from '../helpers.js';
+import { PREREQUISITES, PYTHON } from '../support/prerequisites.js';
 
-const PYTHON = '/usr/bin/python3';
 const SKRF_DIR = '/usr/lib/python3/dist-packages/skrf';
 const DUMP = join(import.meta.dirname, 'skrf_dump.py');
-
-function skrfAvailable(): boolean {
-  const r = spawnSync(PYTHON, ['-c', 'import numpy as np\nfor a in ("int","float","complex","bool","object"):\n    np.__dict__.get(a) or setattr(np, a, __builtins__.__dict__[a] if hasattr(__builtins__, "__dict__") else getattr(__builtins__, a))\nimport skrf'], { stdio: 'ignore' });
-  return r.status === 0;
-}
+const skrfAvailable = () => (PREREQUISITES.find((p) => p.name === 'scikit-rf') as (typeof PREREQUISITES)[number]).present();
 
 const available = skrfAvailable();
 if (!available && process.env.CI) {
@@ -129,13 +125,18 @@ beforeAll(() => {
   refs = new Map(parsed.files.map((r) => [r.file, r]));
 }, 120_000);
 
-/** |a − b| ≤ tol · max(1, |b|) for every pair where the reference is finite. */
+/**
+ * |a − b| ≤ tol · max(1, |b|) for every pair; the reference's non-finite values come as null. Where one side
+ * is finite and the other is not, the comparison fails: a value of ours that is not finite is no excuse to skip.
+ */
 function compareReal(ours: ArrayLike<number>, theirs: (number | null)[], tol: number, what: string, skip?: (i: number) => boolean): number {
   expect(ours.length, `${what}: length`).toBe(theirs.length);
   let compared = 0;
   for (let i = 0; i < theirs.length; i++) {
     const t = theirs[i];
-    if (t === null || !Number.isFinite(ours[i]) || skip?.(i)) continue;
+    if (skip?.(i)) continue;
+    if ((t === null) !== !Number.isFinite(ours[i])) throw new Error(`${what}[${i}]: scatterbook ${ours[i]}, scikit-rf ${t === null ? 'not finite' : t}`);
+    if (t === null) continue;
     if (!(Math.abs(ours[i] - t) <= tol * Math.max(1, Math.abs(t)))) throw new Error(`${what}[${i}]: scatterbook ${ours[i]}, scikit-rf ${t}`);
     compared++;
   }
@@ -148,7 +149,9 @@ function compareComplex(ours: Float64Array, theirs: Cx[], tol: number, what: str
   for (let i = 0; i < theirs.length; i++) {
     const [re, im] = theirs[i];
     if (skip?.(i)) continue;
-    if (re === null || im === null || !Number.isFinite(ours[2 * i]) || !Number.isFinite(ours[2 * i + 1])) continue;
+    const finiteOurs = Number.isFinite(ours[2 * i]) && Number.isFinite(ours[2 * i + 1]);
+    if ((re === null || im === null) === finiteOurs) throw new Error(`${what}[${i}]: scatterbook ${ours[2 * i]}${ours[2 * i + 1]}j, scikit-rf ${re}${im}j (one side not finite)`);
+    if (re === null || im === null) continue;
     const d = Math.hypot(ours[2 * i] - re, ours[2 * i + 1] - im);
     if (!(d <= tol * Math.max(1, Math.hypot(re, im)))) throw new Error(`${what}[${i}]: scatterbook ${ours[2 * i]}${ours[2 * i + 1]}j, scikit-rf ${re}${im}j`);
     compared++;
