@@ -65,6 +65,7 @@ export const figuresCommand: Command = {
       return EXIT.badInput;
     }
     const r = outcome.result;
+    for (const w of r.warnings) t.stderr.write(`${formatSpecError(w, w.file === file ? outcome.source : undefined, 'warning')}\n`);
     t.stdout.write(args.flags.has('json') ? `${JSON.stringify(figuresJson(r), null, 2)}\n` : figuresTable(r, painter(t.stdout, t.env)));
     return !r.pass && args.flags.has('strict') ? EXIT.limitFailed : EXIT.ok;
   },

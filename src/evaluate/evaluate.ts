@@ -16,16 +16,19 @@
 import { FigureUndefined, type FigureContext, type Item } from '../figures/types.js';
 import { formatFrequency } from '../format/units.js';
 import type { Network } from '../network/network.js';
-import type { Position, SpecError } from '../spec/diagnostics.js';
+import type { Position, SpecError, SpecWarning } from '../spec/diagnostics.js';
+import { classOf } from '../classes/registry.js';
 import type { Limit, NormalizedCheck, NormalizedPart } from '../spec/normalize.js';
 import { parameterName } from '../spec/parameter.js';
 import { bandSet } from './band.js';
-import { itemOnNetwork } from './mixed.js';
+import { itemOnNetwork, orderIndex, pairsOfOrder } from './mixed.js';
 
 export interface UnitData {
   readonly unit: string;
   readonly file: string;
   readonly network: Network;
+  /** The file's Touchstone 2 [Mixed-Mode Order] descriptors, when it was written in mixed-mode order. */
+  readonly mixedModeOrder?: readonly string[] | null;
   readonly conditions: Readonly<Record<string, string>>;
   readonly fileAt: Position;
 }
@@ -71,6 +74,8 @@ export interface PartResult {
   /** Every limit passes (reported figures do not count). */
   readonly pass: boolean;
   readonly results: readonly CheckResult[];
+  /** What a reader of the figures must know although they evaluated (e.g. an aliased group delay). */
+  readonly warnings: readonly SpecWarning[];
 }
 
 export function marginOf(limit: Limit, v: number): number {
@@ -118,10 +123,41 @@ export function evaluatePart(part: NormalizedPart, units: readonly UnitData[]): 
   }
   const ports = units.length ? units[0].network.ports : 0;
   const pairs = part.mixedModePairs;
-  if (pairs && units.length) {
+  const inOrder = units.find((u) => u.mixedModeOrder);
+  if (pairs && units.length && !inOrder) {
     const used = pairs.flat();
     if (2 * pairs.length !== ports || used.some((x) => x > ports)) {
       fail('port-range', part.mixedModeAt, `mixed-mode pairs ${JSON.stringify(pairs)} must cover the ${ports} ports of the measured files exactly once`);
+    } else {
+      for (const u of units) {
+        for (const [p, q] of pairs) {
+          if (u.network.z0[p - 1] !== u.network.z0[q - 1]) {
+            fail('bad-value', part.mixedModeAt, `mixed-mode pair [${p}, ${q}]: ${u.file} (unit ${u.unit}) has references of ${u.network.z0[p - 1]} Ω and ${u.network.z0[q - 1]} Ω on these ports; the two ports of a pair need one reference (renormalize the file first)`);
+          }
+        }
+      }
+    }
+  }
+  if (inOrder) {
+    // files in mixed-mode order hold modes, not single-ended entries: names are looked up by descriptor, never guessed
+    const order = inOrder.mixedModeOrder as readonly string[];
+    const describe = `${inOrder.file} holds mixed-mode data ([Mixed-Mode Order] ${order.join(' ')})`;
+    if (units.some((u) => !u.mixedModeOrder || u.mixedModeOrder.join(' ') !== order.join(' '))) {
+      fail('port-count-mismatch', inOrder.fileAt, `${describe}, but not every unit's file has the same order; the units of a part must agree`);
+    }
+    const own = pairs ?? pairsOfOrder(order);
+    for (const c of part.checks) {
+      for (const item of c.items) {
+        for (const p of item.params) {
+          const name = parameterName(p);
+          if (!p.mode) {
+            fail('bad-parameter', c.onAt, `${name} names a single-ended entry, but ${describe}: name its entries by mode, e.g. Sdd21, Scd21, Scc11`);
+            continue;
+          }
+          const to = orderIndex(order, own, p.mode[0] as 'd' | 'c', p.to), from = orderIndex(order, own, p.mode[1] as 'd' | 'c', p.from);
+          if (to === null || from === null) fail('port-range', c.onAt, `${name} has no entry in ${inOrder.file}: its [Mixed-Mode Order] is ${order.join(' ')}`);
+        }
+      }
     }
   }
   if (units.length) {
@@ -129,7 +165,12 @@ export function evaluatePart(part: NormalizedPart, units: readonly UnitData[]): 
       if (Number(port) > ports) fail('port-range', where, `ports names port ${port}, but the measured files have ${ports} port${ports === 1 ? '' : 's'}`);
     }
   }
-  for (const c of part.checks) {
+  for (const c of inOrder ? [] : part.checks) {
+    // (files in mixed-mode order carry their own pairing; single-ended files need the part's)
+    if (!pairs && c.items.some((i) => i.params.some((p) => p.mode))) {
+      fail('bad-parameter', c.onAt, `mixed-mode parameters need the part's port pairs: add mixed-mode: {pairs: [[1, 2], [3, 4]]} (or measure in Touchstone 2's mixed-mode order)`);
+      continue;
+    }
     for (const item of c.items) {
       for (const p of item.params) {
         const top = Math.max(p.to, p.from);
@@ -147,9 +188,10 @@ export function evaluatePart(part: NormalizedPart, units: readonly UnitData[]): 
   if (errors.length) return { value: null, errors };
 
   const results: CheckResult[] = [];
+  const warnings: SpecWarning[] = [];
   for (const check of part.checks) {
     try {
-      results.push(evaluateCheck(part, check, units));
+      results.push(evaluateCheck(part, check, units, warnings));
     } catch (e) {
       if (!(e instanceof EvaluationError)) throw e;
       errors.push(e.error);
@@ -157,10 +199,10 @@ export function evaluatePart(part: NormalizedPart, units: readonly UnitData[]): 
   }
   if (errors.length) return { value: null, errors };
   const pass = results.every((r) => r.kind !== 'limit' || r.pass === true);
-  return { value: { part: part.part, revision: part.revision, pass, results }, errors };
+  return { value: { part: part.part, revision: part.revision, pass, results, warnings }, errors };
 }
 
-function evaluateCheck(part: NormalizedPart, check: NormalizedCheck, all: readonly UnitData[]): CheckResult {
+function evaluateCheck(part: NormalizedPart, check: NormalizedCheck, all: readonly UnitData[], warnings: SpecWarning[]): CheckResult {
   const problem = (code: SpecError['code'], message: string, at: Position = check.at): never => {
     throw new EvaluationError({ code, file: part.file, message, ...at });
   };
@@ -185,13 +227,32 @@ function evaluateCheck(part: NormalizedPart, check: NormalizedCheck, all: readon
       band: { fromHz: band.fromHz, toHz: band.toHz },
     };
     let best: { value: number; atHz: number | null; score: number; on: string } | null = null;
+    let lowest: { value: number; atHz: number | null; on: string; stepHz: number | null } | null = null;
     for (const item of check.items) {
       const candidate = evaluateItem(check, ctx, item, u, score, problem, part.mixedModePairs);
+      if (!lowest || candidate.lowest.value < lowest.value) lowest = { ...candidate.lowest, on: candidate.on };
       if (!best || candidate.score < best.score || (candidate.score === best.score && candidate.atHz !== null && best.atHz !== null && candidate.atHz < best.atHz)) {
         best = candidate;
       }
     }
     const b = best as NonNullable<typeof best>;
+    const low = lowest as NonNullable<typeof lowest>;
+    if (low.value < 0 && classOf(part.partClass).passive) {
+      // excess loss: below −0.1 dB, beyond a network analyser's usual transmission uncertainty (common practice)
+      const at = low.atHz === null ? '' : ` at ${formatFrequency(low.atHz)}`;
+      if (check.figure.id === 'excess-loss' && low.value < -0.1) {
+        warnings.push({ code: 'negative-excess-loss', file: part.file, ...check.at, message: `excess loss of unit ${u.unit} on ${low.on} comes out negative (${trimValue(low.value)} dB${at}) on a passive part, which cannot beat the ideal split: is ways (N = ${part.ways ?? classOf(part.partClass).ways(u.network.ports)}) right for it?` });
+      }
+      if (check.figure.id === 'group-delay' || check.figure.id === 'group-delay-variation') {
+        const df = low.stepHz;
+        warnings.push({
+          code: 'delay-aliased',
+          file: part.file,
+          ...check.at,
+          message: `group delay of unit ${u.unit} on ${low.on} comes out negative (${trimValue(low.value * 1e9)} ns${at}) on a passive part over ${band.name}: the phase probably turns by more than 180° between neighbouring points${df ? ` (they are ${formatFrequency(df)} apart, so delays above 1/(2Δf) = ${trimValue(0.5e9 / df)} ns alias)` : ''}; the delay figures there are not to be trusted: measure on a finer grid`,
+        });
+      }
+    }
     const margin = check.limit ? marginOf(check.limit, b.value) : null;
     unitResults.push({ unit: u.unit, worst: b.value, atHz: b.atHz, worstOn: b.on, margin, pass: margin === null ? null : margin >= 0 });
   }
@@ -256,9 +317,9 @@ function evaluateItem(
   score: (v: number) => number,
   problem: (code: SpecError['code'], message: string) => never,
   pairs: NormalizedPart['mixedModePairs'],
-): { value: number; atHz: number | null; score: number; on: string } {
+): { value: number; atHz: number | null; score: number; on: string; lowest: { value: number; atHz: number | null; stepHz: number | null } } {
   const fig = check.figure;
-  const { network, item } = itemOnNetwork(plainCtx.network, pairs, asWritten);
+  const { network, item } = itemOnNetwork(plainCtx.network, pairs, asWritten, u.mixedModeOrder);
   const ctx: FigureContext = network === plainCtx.network ? plainCtx : { ...plainCtx, network };
   const where = `${fig.id} on ${item.label} in unit ${u.unit} (${u.file})`;
   if (fig.shape === 'scalar') {
@@ -269,7 +330,7 @@ function evaluateItem(
       if (e instanceof FigureUndefined) problem('figure-undefined', `${where}: ${e.message}`);
       throw e;
     }
-    return { value: v, atHz: null, score: score(v), on: item.label };
+    return { value: v, atHz: null, score: score(v), on: item.label, lowest: { value: v, atHz: null, stepHz: null } };
   }
   let values: Float64Array;
   try {
@@ -284,14 +345,14 @@ function evaluateItem(
       problem('figure-undefined', `${where} has no value at ${formatFrequency(set.freqHz[k])}${fig.undefinedWhere ? `: it is not defined where ${fig.undefinedWhere}` : ''}`);
     }
   }
+  let lowK = 0;
+  for (let k = 1; k < set.values.length; k++) if (set.values[k] < set.values[lowK]) lowK = k;
+  const lowest = { value: set.values[lowK], atHz: set.freqHz[lowK], stepHz: gridStep(ctx.network.freqHz, set.freqHz[lowK]) };
   if (fig.shape === 'span') {
-    let max = -Infinity, min = Infinity;
-    for (const v of set.values) {
-      if (v > max) max = v;
-      if (v < min) min = v;
-    }
-    const v = max - min;
-    return { value: v, atHz: null, score: score(v), on: item.label };
+    let max = -Infinity;
+    for (const v of set.values) if (v > max) max = v;
+    const v = max - lowest.value;
+    return { value: v, atHz: null, score: score(v), on: item.label, lowest };
   }
   let bestK = 0;
   let bestS = score(set.values[0]);
@@ -302,6 +363,18 @@ function evaluateItem(
       bestK = k;
     }
   }
-  return { value: set.values[bestK], atHz: set.freqHz[bestK], score: bestS, on: item.label };
+  return { value: set.values[bestK], atHz: set.freqHz[bestK], score: bestS, on: item.label, lowest };
 }
+
+/** The spacing of the measured grid around f (the larger of the two neighbouring steps), or null for one point. */
+function gridStep(freqHz: Float64Array, f: number): number | null {
+  if (freqHz.length < 2) return null;
+  let i = 0;
+  while (i < freqHz.length - 2 && freqHz[i + 1] < f) i++;
+  const left = freqHz[i + 1] - freqHz[i];
+  const right = i + 2 < freqHz.length ? freqHz[i + 2] - freqHz[i + 1] : left;
+  return Math.max(left, right);
+}
+
+const trimValue = (v: number) => String(Number(v.toPrecision(4)));
 

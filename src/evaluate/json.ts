@@ -38,6 +38,7 @@ export function figuresJson(r: PartResult): object {
       pass: c.pass,
       units: c.units.map((u) => ({ unit: u.unit, worst: jsonNumber(u.worst), atHz: u.atHz, margin: jsonNumber(u.margin), pass: u.pass })),
     })),
+    warnings: r.warnings.map((w) => ({ code: w.code, file: w.file, line: w.line, column: w.column, message: w.message })),
   };
 }
 

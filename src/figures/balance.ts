@@ -5,6 +5,7 @@
  *   phase-balance: d = ∠A − ∠B; value = nominal + wrap(d − nominal), wrap into (−180°, 180°];
  *     nominal 0, or the part's phase-split (90° for a hybrid, 180° for a balun by default)
  */
+import { classOf } from '../classes/registry.js';
 import { entry } from '../network/network.js';
 import { db, phaseDeg } from '../network/traces.js';
 import type { FigureContext, FigureDef, Item, PartContext } from './types.js';
@@ -25,10 +26,7 @@ export function wrap180(d: number): number {
 }
 
 export function defaultPhaseSplit(part: PartContext): number {
-  if (part.phaseSplitDeg !== null) return part.phaseSplitDeg;
-  if (part.partClass === 'hybrid') return 90;
-  if (part.partClass === 'balun') return 180;
-  return 0;
+  return part.phaseSplitDeg ?? classOf(part.partClass).phaseSplitDeg;
 }
 
 export const BALANCE_FIGURES: readonly FigureDef[] = [

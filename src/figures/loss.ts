@@ -3,8 +3,10 @@
  * handbook such as Pozar's; common practice):
  *   insertion-loss, mainline-loss, isolation, rejection, coupling, return-loss:  −20·log10|X| dB
  *   gain: 20·log10|X| dB;  vswr: (1 + |X|)/(1 − |X|);  mismatch-loss: −10·log10(1 − |X|²) dB
- *   excess-loss (dividers): −20·log10|X| − 10·log10(N) dB, N = ways or ports − 1
+ *   excess-loss (dividers, hybrids, couplers, baluns): −20·log10|X| − 10·log10(N) dB, N = ways, or the class's
+ *   default (a divider ports − 1, a hybrid, coupler or balun 2)
  */
+import { classOf } from '../classes/registry.js';
 import { entry } from '../network/network.js';
 import { db, lossDb, mismatchLoss, vswr } from '../network/traces.js';
 import type { FigureContext, FigureDef, Item } from './types.js';
@@ -68,9 +70,9 @@ export const LOSS_FIGURES: readonly FigureDef[] = [
     operands: 'each',
     shape: 'trace',
     worse: 'higher',
-    definition: 'insertion loss above the ideal split: −20·log10|X| − 10·log10(N) dB, N = ways (default ports − 1)',
+    definition: 'insertion loss above the ideal split: −20·log10|X| − 10·log10(N) dB, N = ways (default: a divider ports − 1; a hybrid, coupler or balun 2)',
     perPoint: (ctx, item) => {
-      const n = ctx.part.ways ?? ctx.network.ports - 1;
+      const n = ctx.part.ways ?? classOf(ctx.part.partClass).ways(ctx.network.ports);
       const split = 10 * Math.log10(n);
       return lossDb(trace(ctx, item)).map((v) => v - split);
     },

@@ -12,7 +12,7 @@ import { formatFrequency, trimNumber } from '../format/units.js';
 import { formatLimit, formatValue } from '../format/values.js';
 import { ieee370Quality } from '../network/ieee370.js';
 import { passivity, reciprocity } from '../network/quality.js';
-import { CLASS_HEADLINE } from '../plots/defaults.js';
+import { classOf } from '../classes/registry.js';
 import { buildPlots } from '../plots/model.js';
 import { renderPlotAnywhere } from '../plots/pool.js';
 import { DASHES, PALETTE } from '../plots/spec.js';
@@ -110,6 +110,8 @@ export interface PartPage {
   readonly quality: readonly QualityRow[];
   readonly ratings: ReadonlyArray<{ readonly parameter: string; readonly value: string; readonly notes: string }>;
   readonly cautions: readonly string[];
+  /** Warnings of the evaluation, formatted (FILE:LINE:COL: warning: …), for the page and the terminal. */
+  readonly warnings: readonly string[];
   /** The JSON of `scatterbook figures --json`, for machine readers and tests. */
   readonly figuresJson: string;
 }
@@ -128,8 +130,6 @@ export interface Catalog {
   readonly generator: string;
 }
 
-const PASSIVE_CLASSES_EXCEPT = new Set(['amplifier']);
-const NON_RECIPROCAL = new Set(['isolator', 'circulator', 'amplifier']);
 
 const cell = (v: number | null, unit: string): Cell => ({ text: formatValue(v, unit), value: v !== null && Number.isFinite(v) ? v : null });
 const atCell = (hz: number | null): Cell => ({ text: hz === null ? '—' : formatFrequency(hz), value: hz });
@@ -158,7 +158,7 @@ function complianceRow(r: CheckResult): ComplianceRow {
 }
 
 function headline(part: NormalizedPart, results: readonly CheckResult[]): HeadlineRow[] {
-  const order = CLASS_HEADLINE[part.partClass];
+  const order = classOf(part.partClass).headline;
   const picked: CheckResult[] = [];
   for (const id of order) for (const r of results) if (r.figure === id && !picked.includes(r)) picked.push(r);
   const rows = picked.length ? picked : results.filter((r) => r.limit).slice(0, 5);
@@ -170,8 +170,9 @@ function quality(part: NormalizedPart, u: LoadedUnit): QualityRow {
   const p = passivity(net);
   const q = ieee370Quality(net, p.perFrequency);
   const metric = (m: { score: number; grade: string } | null) => (m ? `${trimNumber(m.score, 4)} (${m.grade})` : 'n/a');
-  const active = PASSIVE_CLASSES_EXCEPT.has(part.partClass);
-  const ferrite = NON_RECIPROCAL.has(part.partClass) && !active;
+  const cls = classOf(part.partClass);
+  const active = !cls.passive;
+  const ferrite = !cls.reciprocal && cls.passive;
   let flag: string | null = null;
   let passText = `largest singular value ${trimNumber(p.max, 5)} at ${formatFrequency(p.atHz)}`;
   if (active) passText += ': does not apply to an active part';
@@ -265,6 +266,7 @@ export async function buildPartPage(partFile: string, contentRoot: string, slug:
     quality: outcome.units.map((u) => quality(part, u)),
     ratings: part.ratings.map((r) => ({ parameter: r.parameter, value: r.value, notes: r.notes ?? '' })),
     cautions: cautionsFor(part.partClass, part.cautions),
+    warnings: result.warnings.map((w) => formatSpecError(w, undefined, 'warning')),
     // safe inside <script type="application/json">: no "<" can close the element
     figuresJson: JSON.stringify(figuresJson(result)).replace(/</g, '\\u003c'),
   };

@@ -9,7 +9,7 @@ import { evaluatePart, type PartResult, type UnitData } from '../evaluate/evalua
 import { loadExpressionCompiler, type ExpressionCompiler } from '../figures/expression.js';
 import { readTouchstoneFile } from '../io/touchstone-file.js';
 import type { SpecError } from '../spec/diagnostics.js';
-import { loadPartText, needsExpressions } from '../spec/load.js';
+import { loadPartText } from '../spec/load.js';
 import type { NormalizedPart } from '../spec/normalize.js';
 import type { TouchstoneData } from '../touchstone/normalize.js';
 
@@ -66,8 +66,9 @@ export async function evaluatePartFile(partFile: string, contentRoot: string, di
   const read = readYamlFile(partFile, displayName);
   if (!read.ok) return { source: '', part: null, units: [], result: null, errors: [read.error] };
   const source = read.text;
-  const compile = needsExpressions(source) ? await (compiler ??= loadExpressionCompiler()) : undefined;
-  const loaded = loadPartText(source, displayName, compile);
+  let loaded = loadPartText(source, displayName);
+  // custom figures need the expression compiler (mathjs), loaded only for the parts that have them
+  if (loaded.needsCompiler) loaded = loadPartText(source, displayName, await (compiler ??= loadExpressionCompiler()));
   if (!loaded.value) return { source, part: null, units: [], result: null, errors: loaded.errors };
   const part = loaded.value;
   const base = dirname(partFile);
@@ -96,7 +97,7 @@ export async function evaluatePartFile(partFile: string, contentRoot: string, di
       for (const e of r.errors) errors.push({ code: 'touchstone', file: fileLabel, line: e.line, column: e.column ?? (e.line ? 1 : 0), message: e.message });
       continue;
     }
-    units.push({ unit: m.label, serial: m.unit, file: m.file, network: r.value.network, conditions: m.conditions, fileAt: m.fileAt, data: r.value, path, bytes: r.bytes, sha256: r.sha256 });
+    units.push({ unit: m.label, serial: m.unit, file: m.file, network: r.value.network, mixedModeOrder: r.value.info.mixedModeOrder, conditions: m.conditions, fileAt: m.fileAt, data: r.value, path, bytes: r.bytes, sha256: r.sha256 });
   }
   if (errors.length) return { source, part, units, result: null, errors };
   const t1 = performance.now();

@@ -13,7 +13,7 @@ import { largest, median as medianOf, smallest } from '../evaluate/stats.js';
 import { itemOnNetwork } from '../evaluate/mixed.js';
 import type { NormalizedCheck, NormalizedPart } from '../spec/normalize.js';
 import { parameterName, parseParameter, type SParameter } from '../spec/parameter.js';
-import { CLASS_PLOTS, DOWNWARD, type PlotDef } from './defaults.js';
+import { classOf, DOWNWARD, type PlotDef } from '../classes/registry.js';
 
 export interface Region {
   readonly x0: number;
@@ -90,7 +90,8 @@ export function plotDefs(part: NormalizedPart): PlotDef[] {
   };
   const replaced = own('plots');
   if (replaced) return replaced;
-  const base = CLASS_PLOTS[part.partClass].length ? [...CLASS_PLOTS[part.partClass]] : genericPlots(part);
+  const defaults = classOf(part.partClass).plots;
+  const base = defaults.length ? [...defaults] : genericPlots(part);
   return [...base, ...(own('extra-plots') ?? [])];
 }
 
@@ -154,7 +155,8 @@ export function buildPlots(part: NormalizedPart, units: readonly UnitData[]): Pl
     if (!fig || fig.shape !== 'trace' || !fig.perPoint) return;
     const limitsFrom = def.limitsFrom ?? [def.figure];
     const matching = part.checks.filter((c) => limitsFrom.includes(c.figure.id));
-    const items = itemsFor(def, fig, matching, ports);
+    // files in mixed-mode order hold modes: only mixed-mode items can be drawn from them, never single-ended names
+    const items = itemsFor(def, fig, matching, ports).filter((i) => !units[0].mixedModeOrder || i.params.every((p) => p.mode !== undefined));
     const range = rangeFor(def, part, matching, lo, hi);
     if (!items.length || !range || !(range[1] > range[0])) return;
     const model = buildOne(part, units, def, fig, items, matching, range, index);
@@ -178,7 +180,7 @@ function buildOne(part: NormalizedPart, units: readonly UnitData[], def: PlotDef
         nominal,
         band: { fromHz: x0, toHz: x1 },
       };
-      const on = itemOnNetwork(u.network, part.mixedModePairs, item);
+      const on = itemOnNetwork(u.network, part.mixedModePairs, item, u.mixedModeOrder);
       return { unit: u.unit, freq: u.network.freqHz, values: (fig.perPoint as NonNullable<FigureDef['perPoint']>)({ ...ctx, network: on.network }, on.item) };
     }),
   );

@@ -45,10 +45,23 @@ export interface SpecError extends Position {
 
 export const NOWHERE: Position = { line: 0, column: 0 };
 
-/** `FILE:LINE:COL: error: message`, then the source line and a caret under the fault when the text is known. */
-export function formatSpecError(e: SpecError, source?: string): string {
-  const where = e.line > 0 ? `${printable(e.file)}:${e.line}:${e.column}` : printable(e.file);
-  let out = `${where}: error: ${printable(e.message)}`;
+/**
+ * Warnings: the part evaluated, but a figure or a file says something the
+ * reader of a datasheet must know (a negative excess loss on a passive part,
+ * an aliased group delay, a reader's warning about a measurement file).
+ */
+export type SpecWarningCode = 'negative-excess-loss' | 'delay-aliased' | 'touchstone';
+
+export interface SpecWarning extends Position {
+  readonly code: SpecWarningCode;
+  readonly file: string;
+  readonly message: string;
+}
+
+/** `FILE:LINE:COL: error: message` (or `warning:`), then the source line and a caret under the fault when the text is known. */
+export function formatSpecError(e: SpecError | SpecWarning, source?: string, severity: 'error' | 'warning' = 'error'): string {
+  const where = e.line > 0 ? `${printable(e.file)}:${e.line}${e.column ? `:${e.column}` : ''}` : printable(e.file);
+  let out = `${where}: ${severity}: ${printable(e.message)}`;
   if (source && e.line > 0) {
     const text = source.split(/\r?\n/)[e.line - 1];
     if (text !== undefined) out += `\n  ${printable(text)}\n  ${' '.repeat(Math.max(0, e.column - 1))}^`;

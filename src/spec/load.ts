@@ -14,12 +14,10 @@ import { validate } from './validate.js';
 export interface LoadResult {
   readonly value: NormalizedPart | null;
   readonly errors: readonly SpecError[];
+  /** The part declares custom figures and no compiler was given: load one and load the text again. */
+  readonly needsCompiler?: true;
 }
 
-/** Whether the text declares custom figures (so the caller knows to load the expression compiler). */
-export function needsExpressions(text: string): boolean {
-  return /^custom-figures\s*:/m.test(text);
-}
 
 export function loadPartText(text: string, file: string, compile?: ExpressionCompiler): LoadResult {
   const lines = new LineCounter();
@@ -39,6 +37,7 @@ export function loadPartText(text: string, file: string, compile?: ExpressionCom
   }
   const checked = validate(doc.contents, PART_SCHEMA, file, lines, (a) => a.resolve(doc));
   const normalized = normalizePart({ file, value: checked.value, positions: checked.positions, compile });
+  if (normalized.needsCompiler && checked.errors.length === 0) return { value: null, errors: [], needsCompiler: true };
   const errors = [...checked.errors, ...normalized.errors].sort((a, b) => a.line - b.line || a.column - b.column);
   return { value: errors.length ? null : normalized.value, errors };
 }

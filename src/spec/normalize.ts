@@ -109,7 +109,7 @@ export interface NormalizeInput {
   readonly compile?: ExpressionCompiler;
 }
 
-export function normalizePart(input: NormalizeInput): { value: NormalizedPart | null; errors: SpecError[] } {
+export function normalizePart(input: NormalizeInput): { value: NormalizedPart | null; errors: SpecError[]; needsCompiler?: true } {
   const errors: SpecError[] = [];
   const at = (path: string): Position => input.positions.get(path) ?? { line: 0, column: 0 };
   const err = (code: SpecErrorCode, path: string, message: string) => errors.push({ code, file: input.file, message, ...at(path) });
@@ -185,6 +185,7 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
   }
 
   // custom figures
+  let needsCompiler = false;
   const custom = new Map<string, FigureDef>();
   const brokenCustom = new Set<string>();
   if (isObj(spec['custom-figures'])) {
@@ -194,7 +195,10 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
         err('duplicate', `custom-figures#${name}`, `custom figure "${name}" has the name of a built-in figure; choose another name`);
         continue;
       }
-      if (!input.compile) throw new Error('internal: a part with custom figures needs an expression compiler');
+      if (!input.compile) {
+        needsCompiler = true; // the caller loads the expression compiler and asks again
+        continue;
+      }
       const compiled = input.compile(c.expression);
       if (!compiled.ok) {
         err('bad-expression', `custom-figures.${name}.expression`, compiled.message);
@@ -277,7 +281,6 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
       }
     }
     if (params.some((p) => p.mode) && params.some((p) => !p.mode)) err('bad-parameter', `${path}.on`, `${figure.id} mixes mixed-mode and single-ended parameters; give them in separate limits`);
-    if (params.some((p) => p.mode) && !mixedModePairs) err('bad-parameter', `${path}.on`, `mixed-mode parameters need the part's port pairs: add mixed-mode: {pairs: [[1, 2], [3, 4]]}`);
     if (e.ports !== undefined && figure.operands !== 'port-pair') err('bad-value', `${path}.ports`, `"ports" belongs to the stability figures; ${figure.id} takes "on"`);
     if (e.aperture !== undefined && !figure.accepts?.includes('aperture')) err('bad-value', `${path}.aperture`, `"aperture" belongs to group-delay figures; ${figure.id} has none`);
     if (e.level !== undefined && !figure.accepts?.includes('level')) err('bad-value', `${path}.level`, `"level" belongs to bandwidth and center-frequency; ${figure.id} has none`);
@@ -401,6 +404,7 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
     cautions: Array.isArray(spec.cautions) ? spec.cautions.filter((c): c is string => typeof c === 'string') : [],
     spec,
   };
+  if (needsCompiler) return { value: null, errors: [], needsCompiler };
   return { value: errors.length ? null : value, errors };
 }
 

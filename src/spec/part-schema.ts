@@ -3,6 +3,7 @@
  * generated from it (npm run schema → schema/part.schema.json), and the
  * documentation's key list is checked against it.
  */
+import { CLASSES } from '../classes/registry.js';
 import { NAME_PATTERN, type Field, type Schema } from './schema-dsl.js';
 
 /** Ranges of the part file's numbers (documented in the README and carried into the JSON Schema). */
@@ -10,8 +11,7 @@ export const MAX_PORT = 999;
 export const MAX_APERTURE = 100;
 export const MAX_LEVEL_DB = 60;
 
-export const CLASSES = ['filter', 'attenuator', 'amplifier', 'divider', 'coupler', 'hybrid', 'circulator', 'isolator', 'cable', 'switch', 'balun', 'generic'] as const;
-export type PartClass = (typeof CLASSES)[number];
+export { CLASSES, type PartClass } from '../classes/registry.js';
 
 const str = (description: string, extra: Partial<Extract<Schema, { t: 'string' }>> = {}): Schema => ({ t: 'string', description, ...extra });
 const text = (description: string): Schema => ({ t: 'text', description });
