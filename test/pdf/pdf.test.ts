@@ -44,7 +44,7 @@ beforeAll(() => {
 
 describe.skipIf(!haveBrowser || !havePoppler)('PDF datasheets', () => {
   it('the build prints one PDF per part and the pages link them', () => {
-    expect(build.stderr).toBe('');
+    expect(build.stderr.split('\n').filter((l) => l && !l.startsWith('warning: VT-ATT-10 fails'))).toEqual([]); // the demo's one failing unit is warned about
     expect(build.status).toBe(0);
     expect(build.stdout).toMatch(/built 8 parts, 8 PDFs \([\d.]+ per second after the browser started\)/);
     const index = readFileSync(join(dir, 'site/index.html'), 'utf8');
