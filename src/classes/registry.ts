@@ -21,6 +21,8 @@ export interface PlotDef {
   /** 'all': the whole measured range; 'limits': around the bands of the matching limits; or a band name. */
   readonly range: 'all' | 'limits' | { readonly band: string };
   readonly title?: string;
+  /** The y axis's title, when the figure's name is not what the trade calls the quantity here (Attenuation, Electrical delay). */
+  readonly axis?: string;
   /** Stability figures: the port pair. */
   readonly ports?: readonly [number, number];
 }
@@ -80,7 +82,7 @@ const RECORDS = [
     ways: (ports) => ports - 1,
     phaseSplitDeg: 0,
     plots: [
-      { figure: 'insertion-loss', on: ['S21'], range: 'all', title: 'Attenuation' },
+      { figure: 'insertion-loss', on: ['S21'], range: 'all', title: 'Attenuation', axis: 'Attenuation' },
       { figure: 'vswr', limitsFrom: ['vswr'], on: ['S11', 'S22'], range: 'all' },
     ],
     headline: ['insertion-loss', 'vswr', 'return-loss', 'passband-ripple'],
@@ -193,7 +195,7 @@ const RECORDS = [
     plots: [
       { figure: 'insertion-loss', on: ['S21'], range: 'all' },
       { figure: 'vswr', on: ['S11', 'S22'], range: 'all' },
-      { figure: 'group-delay', on: ['S21'], range: 'all', title: 'Electrical delay' },
+      { figure: 'group-delay', on: ['S21'], range: 'all', title: 'Electrical delay', axis: 'Electrical delay' },
     ],
     headline: ['insertion-loss', 'vswr', 'return-loss', 'group-delay'],
     cautions: [CABLE],

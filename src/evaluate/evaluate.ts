@@ -24,7 +24,10 @@ import { bandSet } from './band.js';
 import { itemOnNetwork, orderIndex, pairsOfOrder } from './mixed.js';
 
 export interface UnitData {
+  /** How results name the measurement: the serial, or "serial @ conditions" where a serial repeats. */
   readonly unit: string;
+  /** The unit's serial number (where it differs from `unit`). */
+  readonly serial?: string;
   readonly file: string;
   readonly network: Network;
   /** The file's Touchstone 2 [Mixed-Mode Order] descriptors, when it was written in mixed-mode order. */
@@ -52,6 +55,8 @@ export interface CheckResult {
   readonly toHz: number;
   readonly unit: string;
   readonly limit: Limit | null;
+  /** How the vendor assures the limit, or null (checked on the listed units only). */
+  readonly assuredBy: NormalizedCheck['assuredBy'];
   readonly worst: number;
   readonly worstAtHz: number | null;
   readonly worstUnit: string;
@@ -272,6 +277,7 @@ function evaluateCheck(part: NormalizedPart, check: NormalizedCheck, all: readon
     toHz: band.toHz,
     unit: check.figure.unit,
     limit,
+    assuredBy: check.assuredBy,
     worst: worst.worst,
     worstAtHz: worst.atHz,
     worstUnit: worst.unit,

@@ -38,3 +38,21 @@ export function formatLimit(limit: Limit | null, unit: string): string {
   return '—';
 }
 
+
+/** The display unit of a row of values of one figure: ns or ps for times (by the largest), else the figure's own. */
+export function displayUnit(values: ReadonlyArray<number | null>, unit: string): { label: string; scale: number } {
+  if (unit === 's') {
+    const m = Math.max(0, ...values.filter((v): v is number => v !== null && Number.isFinite(v)).map(Math.abs));
+    return m >= 1e-9 || m === 0 ? { label: 'ns', scale: 1e9 } : { label: 'ps', scale: 1e12 };
+  }
+  if (unit === 'Hz') return { label: 'MHz', scale: 1e-6 };
+  return { label: unit === 'deg' ? '°' : unit, scale: 1 };
+}
+
+/** A number in a display unit, without the unit: "1.31", "4.780". */
+export function formatNumber(v: number | null, unit: string, d: { scale: number }): string {
+  if (v === null) return '';
+  if (!Number.isFinite(v)) return v > 0 ? '∞' : '−∞';
+  const decimals = unit === 'dB' || unit === 'deg' || (unit === 's' && d.scale === 1e12) ? 2 : 3;
+  return fixed(v * d.scale, decimals);
+}

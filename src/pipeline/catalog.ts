@@ -9,15 +9,15 @@ import type { CheckResult } from '../evaluate/evaluate.js';
 import { figuresJson } from '../evaluate/json.js';
 import { largest, smallest } from '../evaluate/stats.js';
 import { formatFrequency, trimNumber } from '../format/units.js';
-import { formatLimit, formatValue } from '../format/values.js';
+import { displayUnit, formatLimit, formatNumber, formatValue } from '../format/values.js';
 import { ieee370Quality } from '../network/ieee370.js';
 import { passivity, reciprocity } from '../network/quality.js';
 import { classOf } from '../classes/registry.js';
 import { buildPlots } from '../plots/model.js';
 import { renderPlotAnywhere } from '../plots/pool.js';
-import { DASHES, PALETTE } from '../plots/spec.js';
 import { formatSpecError, type SpecError } from '../spec/diagnostics.js';
 import type { NormalizedPart } from '../spec/normalize.js';
+import type { Assurance } from '../spec/part-schema.js';
 import { cautionsFor } from '../site/cautions.js';
 import { renderMarkdown } from '../site/markdown.js';
 import { assetPathProblem, loadSettings, type SiteSettings } from '../site/settings.js';
@@ -47,12 +47,22 @@ export interface ComplianceRow {
   readonly units: ReadonlyArray<{ readonly unit: string; readonly worst: Cell; readonly at: Cell; readonly margin: Cell; readonly verdict: 'PASS' | 'FAIL' | 'REPORT' }>;
 }
 
-export interface HeadlineRow {
+/** A row of the specification table: a figure over a band, with its limits and its typical value. */
+export interface SpecRow {
   readonly label: string;
   readonly on: string;
-  readonly bandRange: string;
-  readonly typical: string;
-  readonly guaranteed: string;
+  /** Band and conditions, e.g. "2.40 GHz to 2.50 GHz" or "10 MHz to 6 GHz, temperature 85 °C". */
+  readonly conditions: string;
+  readonly min: Cell;
+  readonly typ: Cell;
+  readonly max: Cell;
+  readonly unit: string;
+  /** The footnote mark of how the limit is assured ('' when it is checked on the listed units only). */
+  readonly mark: string;
+  /** Where typical comes from when that needs saying: "at temperature 25 °C", "over mixed conditions". */
+  readonly typicalNote: string;
+  /** One line for the catalog index: "Insertion loss 0.92 dB typ, ≤ 1.20 dB max". */
+  readonly summary: string;
 }
 
 export interface PlotBlock {
@@ -60,7 +70,11 @@ export interface PlotBlock {
   readonly title: string;
   readonly svg: string;
   readonly legend: ReadonlyArray<{ readonly label: string; readonly color: string; readonly dash: string }>;
+  /** Limits of one series, drawn as a thick line in its style. */
+  readonly limitLegend: ReadonlyArray<{ readonly label: string; readonly color: string; readonly dash: string }>;
+  /** Distinct units, and measurements (a unit at three temperatures counts three times). */
   readonly unitCount: number;
+  readonly measurementCount: number;
   readonly hasLimits: boolean;
 }
 
@@ -103,7 +117,11 @@ export interface PartPage {
   readonly ports: ReadonlyArray<{ readonly number: number; readonly name: string }>;
   readonly pass: boolean;
   readonly frequencyRange: string;
-  readonly headline: readonly HeadlineRow[];
+  readonly specification: readonly SpecRow[];
+  /** The conditions typical values are quoted at (typical-at), as text, or ''. */
+  readonly typicalConditions: string;
+  /** The closing disclaimer: the vendor's, or one composed from how the limits are assured. */
+  readonly disclaimer: string;
   readonly compliance: readonly ComplianceRow[];
   readonly plots: readonly PlotBlock[];
   readonly measurements: readonly MeasurementRow[];
@@ -157,13 +175,68 @@ function complianceRow(r: CheckResult): ComplianceRow {
   };
 }
 
-function headline(part: NormalizedPart, results: readonly CheckResult[]): HeadlineRow[] {
+/** Footnote marks of how a limit is assured. */
+export const ASSURANCE_MARKS: Readonly<Record<Assurance, string>> = { 'every-unit': '†', sample: '‡', design: '§' };
+const ASSURANCE_TEXT: Readonly<Record<Assurance, string>> = {
+  'every-unit': 'tested on every unit shipped',
+  sample: 'established by characterisation of a sample and not tested on every unit',
+  design: 'assured by design and not tested',
+};
+
+const conditionText = (c: Readonly<Record<string, string>>) => Object.entries(c).map(([k, v]) => `${k} ${v}`).join(', ');
+
+function specRow(r: CheckResult, when: Readonly<Record<string, string>> | null, typicalAt: Readonly<Record<string, string>> | null): SpecRow {
+  const l = r.limit;
+  const two = l?.tolerance !== undefined && l.nominal !== undefined;
+  const min = two ? (l.nominal as number) - (l.tolerance as number) : (l?.min ?? null);
+  const max = two ? (l.nominal as number) + (l.tolerance as number) : (l?.max ?? null);
+  const d = displayUnit([min, max, r.typical], r.unit);
+  const num = (v: number | null): Cell => ({ text: formatNumber(v, r.unit, d), value: v !== null && Number.isFinite(v) ? v : null });
+  // a two-sided typical is shown as its deviation from nominal, so that units on either side do not read as cancelling
+  const typ: Cell = two ? { text: `${formatNumber(l.nominal as number, r.unit, d)} ± ${formatNumber(Math.abs(r.typical - (l.nominal as number)), r.unit, d)}`, value: r.typical } : num(r.typical);
+  // the part's typical-at is stated once above the table; a row says more only where its typical differs from that
+  const typicalNote = r.typicalAt ? '' : typicalAt ? `typical over its own units (none measured at ${conditionText(typicalAt)})` : r.typicalMixed ? 'typical over units measured under different conditions' : '';
+  const conditions = [bandRange(r.fromHz, r.toHz), when ? conditionText(when) : ''].filter(Boolean).join(', ');
+  const limitText = max !== null && min !== null && !two ? `${formatLimit(r.limit, r.unit)}` : max !== null ? `≤ ${formatValue(max, r.unit)} max` : min !== null ? `≥ ${formatValue(min, r.unit)} min` : '';
+  return {
+    label: r.label,
+    on: r.on.join(', '),
+    conditions,
+    min: num(min),
+    typ,
+    max: num(max),
+    unit: d.label,
+    mark: r.assuredBy ? ASSURANCE_MARKS[r.assuredBy] : '',
+    typicalNote,
+    summary: `${r.label} ${two ? typ.text + ' ' + d.label : formatValue(r.typical, r.unit)} typ${limitText && !two ? `, ${limitText}` : ''}`,
+  };
+}
+
+/** The rows of the specification table: the class's headline figures in its order (or the first limits), then nothing else. */
+function specification(part: NormalizedPart, results: readonly CheckResult[]): SpecRow[] {
   const order = classOf(part.partClass).headline;
   const picked: CheckResult[] = [];
   for (const id of order) for (const r of results) if (r.figure === id && !picked.includes(r)) picked.push(r);
   const rows = picked.length ? picked : results.filter((r) => r.limit).slice(0, 5);
-  return rows.map((r) => ({ label: r.label, on: r.on.join(', '), bandRange: bandRange(r.fromHz, r.toHz), typical: formatValue(r.typical, r.unit), guaranteed: r.limit ? formatLimit(r.limit, r.unit) : '—' }));
+  return rows.map((r) => specRow(r, part.checks[results.indexOf(r)]?.when ?? null, part.typicalAt));
 }
+
+/** The disclaimer a datasheet closes with: what its figures are, and what each mark in its table means. */
+export function composeDisclaimer(results: readonly CheckResult[]): string {
+  const used = ASSURANCES_IN_ORDER.filter((a) => results.some((r) => r.assuredBy === a));
+  const marks = used.map((a) => `limits marked ${ASSURANCE_MARKS[a]} are ${ASSURANCE_TEXT[a]}`);
+  const unmarked = results.some((r) => r.limit && !r.assuredBy);
+  return [
+    'Figures are computed from the measured units listed on this datasheet and describe those units.',
+    marks.length ? `${marks.join('; ').replace(/^l/, 'L')}.` : '',
+    unmarked ? `${marks.length ? 'Other limits are' : 'The limits are'} checked on those units only and are not a guarantee for other units.` : '',
+    'The application\'s own qualification and local codes and regulations govern use.',
+  ]
+    .filter(Boolean)
+    .join(' ');
+}
+
+const ASSURANCES_IN_ORDER: readonly Assurance[] = ['every-unit', 'sample', 'design'];
 
 function quality(part: NormalizedPart, u: LoadedUnit): QualityRow {
   const net = u.network;
@@ -234,8 +307,10 @@ export async function buildPartPage(partFile: string, contentRoot: string, slug:
     id: m.id,
     title: m.title,
     svg: svgs[i],
-    legend: m.items.map((label, j) => ({ label, color: PALETTE[j % PALETTE.length], dash: DASHES[j % DASHES.length].join(' ') })),
+    legend: m.items.map((label, j) => ({ label, color: m.colors[j], dash: m.dashes[j].join(' ') })),
+    limitLegend: m.seriesLimits.map((l) => ({ label: l.label, color: l.color, dash: l.dash.join(' ') })),
     unitCount: m.unitCount,
+    measurementCount: m.measurementCount,
     hasLimits: m.regions.length > 0,
   }));
   if (times) times.plots += performance.now() - tp;
@@ -259,7 +334,9 @@ export async function buildPartPage(partFile: string, contentRoot: string, slug:
     ports: Array.from({ length: outcome.units[0]?.network.ports ?? 0 }, (_, i) => ({ number: i + 1, name: part.portNames[i + 1] ?? `Port ${i + 1}` })),
     pass: result.pass,
     frequencyRange: bandRange(lo, hi),
-    headline: headline(part, result.results),
+    specification: specification(part, result.results),
+    typicalConditions: part.typicalAt ? conditionText(part.typicalAt) : '',
+    disclaimer: settings.disclaimer ?? composeDisclaimer(result.results),
     compliance: result.results.map(complianceRow),
     plots,
     measurements: outcome.units.map((u, i) => measurement(u, part.measurements[i])),

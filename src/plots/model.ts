@@ -5,6 +5,7 @@
  * GHz chosen from the range; ns or ps for delay).
  */
 import type { UnitData } from '../evaluate/evaluate.js';
+import { DASHES, LIMIT_FILL, PALETTE } from './spec.js';
 import { FIGURES } from '../figures/registry.js';
 import type { FigureContext, FigureDef, Item } from '../figures/types.js';
 import { frequencyUnitFor } from '../format/units.js';
@@ -26,6 +27,16 @@ export interface Edge {
   readonly x0: number;
   readonly x1: number;
   readonly y: number;
+}
+
+/**
+ * The edge of a limit that applies to some series of the plot only, never shaded: in the dash of its
+ * parameter when it covers one parameter, in the colour of its condition when it covers one condition,
+ * otherwise in the limit colour.
+ */
+export interface SeriesEdge extends Edge {
+  readonly color: string;
+  readonly dash: readonly number[];
 }
 
 export interface TracePoint {
@@ -60,7 +71,17 @@ export interface PlotModel {
   readonly envelope: readonly BandPoint[];
   readonly regions: readonly Region[];
   readonly edges: readonly Edge[];
+  /** Limits of one series (a parameter, or the units of one condition): their edges in the series' style. */
+  readonly seriesEdges: readonly SeriesEdge[];
+  /** The limits of some series only, for the legend: what they cover, in their style. */
+  readonly seriesLimits: ReadonlyArray<{ readonly label: string; readonly color: string; readonly dash: readonly number[] }>;
+  /** Colour and dash of each series (index as items), e.g. by condition when the units were measured under several. */
+  readonly colors: readonly string[];
+  readonly dashes: ReadonlyArray<readonly number[]>;
+  /** Distinct units (serials) drawn. */
   readonly unitCount: number;
+  /** Measurements drawn (a unit measured at three temperatures counts three times). */
+  readonly measurementCount: number;
 }
 
 interface Display {
@@ -165,58 +186,79 @@ export function buildPlots(part: NormalizedPart, units: readonly UnitData[]): Pl
   return out;
 }
 
+/** The units' condition groups: one per distinct set of conditions, in first-seen order; one unlabelled group when all agree. */
+function conditionGroups(units: readonly UnitData[]): Array<{ label: string; conditions: Readonly<Record<string, string>>; units: UnitData[] }> {
+  const groups = new Map<string, { label: string; conditions: Readonly<Record<string, string>>; units: UnitData[] }>();
+  for (const u of units) {
+    const key = JSON.stringify(Object.entries(u.conditions).sort());
+    let g = groups.get(key);
+    if (!g) groups.set(key, (g = { label: Object.values(u.conditions).join(', '), conditions: u.conditions, units: [] }));
+    g.units.push(u);
+  }
+  const all = [...groups.values()];
+  return all.length > 1 ? all : [{ label: '', conditions: {}, units: [...units] }];
+}
+
 function buildOne(part: NormalizedPart, units: readonly UnitData[], def: PlotDef, fig: FigureDef, items: readonly Item[], matching: readonly NormalizedCheck[], range: [number, number], index: number): PlotModel | null {
   const [x0, x1] = range;
   const fu = frequencyUnitFor(x1);
   const nominal = matching.find((c) => c.figure.id === fig.id && c.nominal !== null)?.nominal ?? null;
-  // per unit and item: the figure's values on that unit's grid
-  const perItem = items.map((item) =>
-    units.map((u) => {
-      const ctx: FigureContext = {
-        network: u.network,
-        part: { partClass: part.partClass, ways: part.ways, phaseSplitDeg: part.phaseSplitDeg },
-        aperture: matching.find((c) => c.figure.id === fig.id)?.aperture ?? 1,
-        levelDb: 3,
-        nominal,
-        band: { fromHz: x0, toHz: x1 },
-      };
-      const on = itemOnNetwork(u.network, part.mixedModePairs, item, u.mixedModeOrder);
-      return { unit: u.unit, freq: u.network.freqHz, values: (fig.perPoint as NonNullable<FigureDef['perPoint']>)({ ...ctx, network: on.network }, on.item) };
-    }),
+  const groups = conditionGroups(units);
+  // a series: one parameter over the units of one condition group (colour by condition where there are several, dash by parameter)
+  const series = groups.flatMap((g, gi) =>
+    items.map((item, ii) => ({
+      label: g.label ? `${item.label} at ${g.label}` : item.label,
+      item,
+      group: g,
+      color: PALETTE[(groups.length > 1 ? gi : ii) % PALETTE.length],
+      dash: DASHES[ii % DASHES.length],
+      data: g.units.map((u) => {
+        const ctx: FigureContext = {
+          network: u.network,
+          part: { partClass: part.partClass, ways: part.ways, phaseSplitDeg: part.phaseSplitDeg },
+          aperture: matching.find((c) => c.figure.id === fig.id)?.aperture ?? 1,
+          levelDb: 3,
+          nominal,
+          band: { fromHz: x0, toHz: x1 },
+        };
+        const on = itemOnNetwork(u.network, part.mixedModePairs, item, u.mixedModeOrder);
+        return { unit: u.unit, freq: u.network.freqHz, values: (fig.perPoint as NonNullable<FigureDef['perPoint']>)({ ...ctx, network: on.network }, on.item) };
+      }),
+    })),
   );
   const all: number[] = [];
-  for (const series of perItem) for (const s of series) s.freq.forEach((f, k) => f >= x0 && f <= x1 && Number.isFinite(s.values[k]) && all.push(s.values[k]));
+  for (const se of series) for (const d of se.data) d.freq.forEach((f, k) => f >= x0 && f <= x1 && Number.isFinite(d.values[k]) && all.push(d.values[k]));
   if (!all.length) return null;
   const disp = valueDisplay(fig.unit, all);
   const traces: TracePoint[] = [];
   const med: TracePoint[] = [];
   const env: BandPoint[] = [];
-  items.forEach((item, i) => {
-    for (const s of perItem[i]) {
-      for (const [f, v] of thin(s.freq, s.values, x0, x1)) traces.push({ x: f / fu.scale, y: v * disp.scale, item: item.label, trace: `${s.unit} ${item.label}` });
+  for (const se of series) {
+    for (const d of se.data) {
+      for (const [f, v] of thin(d.freq, d.values, x0, x1)) traces.push({ x: f / fu.scale, y: v * disp.scale, item: se.label, trace: `${d.unit} ${se.item.label}` });
     }
-    const ref = perItem[i][0];
+    const ref = se.data[0];
     const mf: number[] = [], mv: number[] = [], lo: number[] = [], hi: number[] = [];
     ref.freq.forEach((f) => {
       if (f < x0 || f > x1) return;
-      const vals = perItem[i].map((s) => valueAt(s.freq, s.values, f)).filter(Number.isFinite);
+      const vals = se.data.map((d) => valueAt(d.freq, d.values, f)).filter(Number.isFinite);
       if (!vals.length) return;
       mf.push(f);
       mv.push(medianOf(vals));
       lo.push(smallest(vals));
       hi.push(largest(vals));
     });
-    for (const [f, v] of thin(mf, mv, x0, x1)) med.push({ x: f / fu.scale, y: v * disp.scale, item: item.label, trace: `median ${item.label}` });
+    for (const [f, v] of thin(mf, mv, x0, x1)) med.push({ x: f / fu.scale, y: v * disp.scale, item: se.label, trace: `median ${se.label}` });
     if (units.length > 1) {
       // the spread keeps each column's lowest low and highest high, each at its own point, the other edge interpolated there
       const fa = Float64Array.from(mf), la = Float64Array.from(lo), ha = Float64Array.from(hi);
       const points = new Map<number, BandPoint>();
       for (const [f] of [...thin(fa, la, x0, x1), ...thin(fa, ha, x0, x1)]) {
-        points.set(f, { x: f / fu.scale, lo: valueAt(fa, la, f) * disp.scale, hi: valueAt(fa, ha, f) * disp.scale, item: item.label });
+        points.set(f, { x: f / fu.scale, lo: valueAt(fa, la, f) * disp.scale, hi: valueAt(fa, ha, f) * disp.scale, item: se.label });
       }
-      env.push(...[...points.values()].sort((a, b) => a.x - b.x));
+      for (const pt of [...points.values()].sort((a, b) => a.x - b.x)) env.push(pt);
     }
-  });
+  }
   // limit values, for the domain and the regions
   const limitYs: number[] = [];
   for (const c of matching) {
@@ -231,16 +273,35 @@ function buildOne(part: NormalizedPart, units: readonly UnitData[], def: PlotDef
   const span = yMax - yMin || Math.abs(yMax) * 0.1 || 1;
   yMin -= span * 0.08;
   yMax += span * 0.08;
+  // a limit shades the forbidden region only where it applies to every series drawn; a limit of some series
+  // (one parameter, or the units of one condition) is drawn as an edge in those series' style, never shaded over the others
   const regions: Region[] = [];
   const edges: Edge[] = [];
+  const seriesEdges: SeriesEdge[] = [];
+  const seriesLimits = new Map<string, { label: string; color: string; dash: readonly number[] }>();
+  const appliesTo = (c: NormalizedCheck, se: (typeof series)[number]) =>
+    c.items.some((i) => i.label === se.item.label) && (!c.when || Object.entries(c.when).every(([k, v]) => se.group.units.every((u) => u.conditions[k] === v)));
   for (const c of matching) {
     const l = c.limit;
     if (!l) continue;
     const bx0 = Math.max(c.band.fromHz, x0) / fu.scale, bx1 = Math.min(c.band.toHz, x1) / fu.scale;
     if (!(bx1 >= bx0)) continue;
+    const own = series.filter((se) => appliesTo(c, se));
+    if (!own.length) continue;
+    const everywhere = own.length === series.length;
     const add = (from: number, to: number, edge: number) => {
-      regions.push({ x0: bx0, x1: bx1, y0: from, y1: to });
-      edges.push({ x0: bx0, x1: bx1, y: edge });
+      if (everywhere) {
+        regions.push({ x0: bx0, x1: bx1, y0: from, y1: to });
+        edges.push({ x0: bx0, x1: bx1, y: edge });
+      } else {
+        const oneItem = new Set(own.map((se) => se.item.label)).size === 1;
+        const oneGroup = new Set(own.map((se) => se.group)).size === 1 && groups.length > 1;
+        const color = oneGroup ? own[0].color : groups.length === 1 && oneItem ? own[0].color : LIMIT_FILL;
+        const dash = oneItem ? own[0].dash : [1, 0];
+        const label = `limit ${oneItem ? `for ${own[0].item.label}` : ''}${oneGroup ? ` at ${own[0].group.label}` : ''}`.replace('limit  at', 'limit at');
+        seriesEdges.push({ x0: bx0, x1: bx1, y: edge, color, dash });
+        seriesLimits.set(label, { label, color, dash });
+      }
     };
     if (l.tolerance !== undefined && l.nominal !== undefined) {
       add((l.nominal + l.tolerance) * disp.scale, yMax, (l.nominal + l.tolerance) * disp.scale);
@@ -250,24 +311,33 @@ function buildOne(part: NormalizedPart, units: readonly UnitData[], def: PlotDef
     if (l.min !== undefined) add(yMin, l.min * disp.scale, l.min * disp.scale);
   }
   const title = def.title ?? fig.title;
-  const limitText = matching.filter((c) => c.limit).map((c) => `${c.label} over ${c.band.name}`).join('; ');
-  const itemText = items.map((i) => i.label).join(', ');
+  const limitText = matching.filter((c) => c.limit).map((c) => `${c.label} over ${c.band.name}${c.when ? ` (${Object.values(c.when).join(', ')} only)` : ''}`).join('; ');
+  const itemText = series.map((se) => se.label).join(', ');
+  const serials = new Set(units.map((u) => u.serial ?? u.unit));
+  // the axis names what is drawn: the plot's own axis title, else the one label its limits share, else the figure
+  const labels = [...new Set(matching.filter((c) => c.figure.id === fig.id).map((c) => c.label))];
+  const axis = def.axis ?? (labels.length === 1 ? labels[0] : fig.title);
   return {
     id: `plot-${index + 1}`,
     title,
-    description: `${title}: ${fig.title.toLowerCase()} of ${itemText} for ${units.length} measured unit${units.length === 1 ? '' : 's'} from ${trim(x0 / fu.scale)} to ${trim(x1 / fu.scale)} ${fu.unit}${units.length > 1 ? ', with the median drawn bold and the spread of the units shaded' : ''}${limitText ? `; shaded regions mark values the limits forbid (${limitText})` : ''}.`,
+    description: `${title}: ${fig.title.toLowerCase()} of ${itemText} for ${serials.size} measured unit${serials.size === 1 ? '' : 's'}${units.length > serials.size ? ` (${units.length} measurements)` : ''} from ${trim(x0 / fu.scale)} to ${trim(x1 / fu.scale)} ${fu.unit}${units.length > 1 ? ', with the median drawn bold and the spread of the units shaded' : ''}${limitText ? `; limits: ${limitText}; shaded regions mark values a limit of every trace forbids, and a limit of some traces only is a line in their style` : ''}.`,
     xTitle: `Frequency (${fu.unit})`,
-    yTitle: disp.label ? `${fig.title} (${disp.label})` : fig.title,
+    yTitle: disp.label ? `${axis} (${disp.label})` : axis,
     xDomain: [x0 / fu.scale, x1 / fu.scale],
     yDomain: [yMin, yMax],
     downward: DOWNWARD.has(fig.id),
-    items: items.map((i) => i.label),
+    items: series.map((se) => se.label),
     traces,
     median: med,
     envelope: env,
     regions,
     edges,
-    unitCount: units.length,
+    seriesEdges,
+    seriesLimits: [...seriesLimits.values()],
+    colors: series.map((se) => se.color),
+    dashes: series.map((se) => se.dash),
+    unitCount: serials.size,
+    measurementCount: units.length,
   };
 }
 

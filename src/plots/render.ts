@@ -27,6 +27,8 @@ const silent = {
  * Vega JSON for every plot (strings as JSON strings, numbers by their text).
  */
 const SENTINEL = { x0: 9.87654321e-13, x1: 1.23456789e13, y0: -8.7654321e-13, y1: 2.3456789e13 };
+/** Dash patterns are arrays of numbers: [DASH_SENTINEL + i, 1] stands for item i's until it is replaced. */
+const DASH_SENTINEL = 987_650;
 const compiled = new Map<string, string>();
 
 function compiledTemplate(shape: PlotShape): string {
@@ -34,7 +36,9 @@ function compiledTemplate(shape: PlotShape): string {
   let text = compiled.get(key);
   if (!text) {
     const items = Array.from({ length: shape.itemCount }, (_, i) => `@@item${i}@@`);
-    const vl = specOf(shape, { title: '@@title@@', xTitle: '@@xTitle@@', yTitle: '@@yTitle@@', xDomain: [SENTINEL.x0, SENTINEL.x1], yDomain: [SENTINEL.y0, SENTINEL.y1], items });
+    const colors = items.map((_, i) => `@@color${i}@@`);
+    const dashes = items.map((_, i) => [DASH_SENTINEL + i, 1]);
+    const vl = specOf(shape, { title: '@@title@@', xTitle: '@@xTitle@@', yTitle: '@@yTitle@@', xDomain: [SENTINEL.x0, SENTINEL.x1], yDomain: [SENTINEL.y0, SENTINEL.y1], items, colors, dashes });
     text = JSON.stringify(compile(vl as never, { logger: silent }).spec);
     compiled.set(key, text);
   }
@@ -53,7 +57,7 @@ function vegaSpecFor(m: PlotModel): vega.Spec {
     .replaceAll(String(SENTINEL.y0), String(t.yDomain[0]))
     .replaceAll(String(SENTINEL.y1), String(t.yDomain[1]));
   t.items.forEach((item, i) => {
-    text = text.replaceAll(`@@item${i}@@`, str(item));
+    text = text.replaceAll(`@@item${i}@@`, str(item)).replaceAll(`@@color${i}@@`, str(t.colors[i])).replaceAll(`[${DASH_SENTINEL + i},1]`, JSON.stringify(t.dashes[i]));
   });
   return JSON.parse(text) as vega.Spec;
 }

@@ -23,6 +23,9 @@ export interface PlotTexts {
   readonly xDomain: readonly [number, number];
   readonly yDomain: readonly [number, number];
   readonly items: readonly string[];
+  /** Colour and dash pattern per item. */
+  readonly colors: readonly string[];
+  readonly dashes: ReadonlyArray<readonly number[]>;
 }
 
 /** The form of a plot, apart from its texts, domains and data: plots of one shape compile once. */
@@ -30,10 +33,12 @@ export interface PlotShape {
   readonly downward: boolean;
   readonly itemCount: number;
   readonly several: boolean;
+  /** Limits drawn per series (in the series' style) as well as, or instead of, shaded regions. */
+  readonly seriesEdges: boolean;
 }
 
-export const shapeOf = (m: PlotModel): PlotShape => ({ downward: m.downward, itemCount: m.items.length, several: m.unitCount > 1 });
-export const textsOf = (m: PlotModel): PlotTexts => ({ title: m.title, xTitle: m.xTitle, yTitle: m.yTitle, xDomain: m.xDomain, yDomain: m.yDomain, items: m.items });
+export const shapeOf = (m: PlotModel): PlotShape => ({ downward: m.downward, itemCount: m.items.length, several: m.measurementCount > 1, seriesEdges: m.seriesEdges.length > 0 });
+export const textsOf = (m: PlotModel): PlotTexts => ({ title: m.title, xTitle: m.xTitle, yTitle: m.yTitle, xDomain: m.xDomain, yDomain: m.yDomain, items: m.items, colors: m.colors, dashes: m.dashes });
 
 /** The Vega-Lite spec of a plot. */
 export function plotSpec(m: PlotModel): Record<string, unknown> {
@@ -44,8 +49,8 @@ export function specOf(shape: PlotShape, t: PlotTexts): Record<string, unknown> 
   const m = { ...t, downward: shape.downward, unitCount: shape.several ? 2 : 1 };
   const x = { field: 'x', type: 'quantitative', title: m.xTitle, scale: { domain: [...m.xDomain], nice: false, zero: false } };
   const y = { field: 'y', type: 'quantitative', title: m.yTitle, scale: { domain: [...m.yDomain], nice: false, zero: false, reverse: m.downward } };
-  const color = { field: 'item', type: 'nominal', title: 'Parameter', scale: { domain: [...m.items], range: PALETTE.slice(0, Math.max(1, m.items.length)) } };
-  const dash = { field: 'item', type: 'nominal', legend: null, scale: { domain: [...m.items], range: DASHES.slice(0, Math.max(1, m.items.length)) } };
+  const color = { field: 'item', type: 'nominal', title: 'Parameter', scale: { domain: [...m.items], range: [...m.colors] } };
+  const dash = { field: 'item', type: 'nominal', legend: null, scale: { domain: [...m.items], range: m.dashes.map((d) => [...d]) } };
   const layers: Record<string, unknown>[] = [
     {
       name: 'limit_regions',
@@ -80,6 +85,15 @@ export function specOf(shape: PlotShape, t: PlotTexts): Record<string, unknown> 
     mark: { type: 'rule', color: LIMIT_FILL, strokeWidth: 1.4, clip: true },
     encoding: { x: { ...x, field: 'x0' }, x2: { field: 'x1' }, y: { ...y, field: 'y' } },
   });
+  if (shape.seriesEdges) {
+    layers.push({
+      name: 'series_limit_edges',
+      data: { name: 'seriesEdges' },
+      mark: { type: 'rule', strokeWidth: 2.4, clip: true },
+      // colour and dash come with each edge (scale null: the values are used as they are)
+      encoding: { x: { ...x, field: 'x0' }, x2: { field: 'x1' }, y: { ...y, field: 'y' }, color: { field: 'color', type: 'nominal', scale: null, legend: null }, strokeDash: { field: 'dash', type: 'nominal', scale: null, legend: null } },
+    });
+  }
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     width: WIDTH,
@@ -100,6 +114,7 @@ export function specOf(shape: PlotShape, t: PlotTexts): Record<string, unknown> 
 
 /** The named datasets the spec reads (a plot of one unit has no spread and no per-unit traces beside its median). */
 export function plotData(m: PlotModel): Record<string, readonly object[]> {
-  const own = { regions: m.regions, median: m.median, edges: m.edges };
-  return shapeOf(m).several ? { ...own, envelope: m.envelope, traces: m.traces } : own;
+  const shape = shapeOf(m);
+  const own = { regions: m.regions, median: m.median, edges: m.edges, ...(shape.seriesEdges ? { seriesEdges: m.seriesEdges } : {}) };
+  return shape.several ? { ...own, envelope: m.envelope, traces: m.traces } : own;
 }

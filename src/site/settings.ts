@@ -16,13 +16,11 @@ export interface SiteSettings {
   readonly accent: string;
   readonly paper: 'A4' | 'Letter';
   readonly footer: string;
-  readonly disclaimer: string;
+  /** The vendor's own disclaimer, or null: each datasheet composes one from how its limits are assured. */
+  readonly disclaimer: string | null;
   readonly baseUrl: string;
   readonly stylesheet: string | null;
 }
-
-export const DEFAULT_DISCLAIMER =
-  'Figures are computed from the measured units listed on each datasheet and describe those units; they are typical measurements, not a guarantee for every unit, except where a limit is marked as guaranteed. The application\'s own qualification and local codes and regulations govern use.';
 
 export const SITE_SCHEMA: Schema = {
   t: 'object',
@@ -34,14 +32,14 @@ export const SITE_SCHEMA: Schema = {
     accent: { t: 'string', pattern: '^#[0-9a-fA-F]{6}$', patternHint: '#RRGGBB', description: 'the accent colour, #RRGGBB' },
     paper: { t: 'string', enum: ['A4', 'Letter'], description: 'paper size of the PDFs and print stylesheet' },
     footer: { t: 'string', description: 'text at the foot of every page' },
-    disclaimer: { t: 'string', description: 'the disclaimer under every datasheet' },
+    disclaimer: { t: 'string', description: 'the disclaimer under every datasheet, replacing the one each datasheet composes from how its limits are assured' },
     'base-url': { t: 'string', description: 'where the site will be published, e.g. https://example.invalid/datasheets/' },
     stylesheet: { t: 'string', description: 'an extra stylesheet in the content folder\'s assets/, relative to the content folder (e.g. assets/vendor.css)' },
   },
 };
 
 export function defaultSettings(): SiteSettings {
-  return { vendor: 'Datasheets', tagline: '', logo: null, accent: '#1f4e8c', paper: 'A4', footer: '', disclaimer: DEFAULT_DISCLAIMER, baseUrl: '/', stylesheet: null };
+  return { vendor: 'Datasheets', tagline: '', logo: null, accent: '#1f4e8c', paper: 'A4', footer: '', disclaimer: null, baseUrl: '/', stylesheet: null };
 }
 
 export function loadSettings(text: string | null, file: string): { value: SiteSettings; errors: SpecError[]; positions: ReadonlyMap<string, Position> } {

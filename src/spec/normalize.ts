@@ -10,7 +10,7 @@ import type { FigureDef, FigureUnit, Item } from '../figures/types.js';
 import { nearest } from '../format/suggest.js';
 import type { Position, SpecError, SpecErrorCode } from './diagnostics.js';
 import { parameterName, parseParameter, type SParameter } from './parameter.js';
-import { MAX_LEVEL_DB, type PartClass } from './part-schema.js';
+import { MAX_LEVEL_DB, type Assurance, type PartClass } from './part-schema.js';
 import { parseQuantity, KIND_NAMES, type QuantityKind } from './quantity.js';
 import type { Plain } from './validate.js';
 
@@ -55,6 +55,8 @@ export interface NormalizedCheck {
   readonly aperture: number;
   readonly levelDb: number;
   readonly label: string;
+  /** How the vendor assures the limit (assured-by), or null: checked on the listed units only. */
+  readonly assuredBy: Assurance | null;
   readonly at: Position;
   readonly onAt: Position;
 }
@@ -360,6 +362,7 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
       aperture: typeof e.aperture === 'number' ? e.aperture : 1,
       levelDb: levelQ && levelQ.ok ? levelQ.value : 3,
       label: typeof e.label === 'string' ? e.label : figure.title,
+      assuredBy: typeof e['assured-by'] === 'string' ? (e['assured-by'] as Assurance) : null,
       at: at(path),
       onAt: at(`${path}.on`).line ? at(`${path}.on`) : at(path),
     };

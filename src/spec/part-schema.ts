@@ -10,6 +10,9 @@ import { NAME_PATTERN, type Field, type Schema } from './schema-dsl.js';
 export const MAX_PORT = 999;
 export const MAX_APERTURE = 100;
 export const MAX_LEVEL_DB = 60;
+/** How a limit is assured for shipped parts (shown as a footnote mark on the datasheet). */
+export const ASSURANCES = ['every-unit', 'sample', 'design'] as const;
+export type Assurance = (typeof ASSURANCES)[number];
 
 export { CLASSES, type PartClass } from '../classes/registry.js';
 
@@ -44,6 +47,7 @@ const limitFields: Record<string, Field> = {
   min: { t: 'quantity', description: 'the smallest value allowed' },
   nominal: { t: 'quantity', description: 'the intended value; with tolerance, the allowed window is nominal ± tolerance' },
   tolerance: { t: 'quantity', description: 'half the width of the allowed window around nominal (nominal defaults to the figure\'s own: 0 for balances)' },
+  'assured-by': str('how the vendor assures the limit for parts it ships: every-unit (each unit is tested against it), sample (characterised on a sample, not tested on every unit) or design (by design, not tested); without it the limit is checked on the listed units only', { enum: ASSURANCES }),
 };
 
 function plotFields(): Record<string, Field> {
