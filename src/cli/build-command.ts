@@ -179,7 +179,6 @@ async function buildAndPublish(o: BuildOptions, t: Terminal, started: number): P
 
 export const buildCommand: Command = {
   name: 'build',
-  summary: 'build the datasheet site and PDFs of a content folder (default content/) into _site/',
   usage: 'scatterbook build [CONTENT_DIR] [--out DIR] [--keep-going] [--strict] [--no-pdf | --pdf] [--browser PATH] [--no-cache] [--cache DIR]',
   flags: BUILD_FLAGS,
   async run(argv, t) {

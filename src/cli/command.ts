@@ -12,7 +12,6 @@ export type ExitCode = (typeof EXIT)[keyof typeof EXIT];
 
 export interface Command {
   readonly name: string;
-  readonly summary: string;
   readonly usage: string;
   readonly flags: readonly FlagSpec[];
   run(argv: readonly string[], t: Terminal): ExitCode | Promise<ExitCode>;

@@ -51,7 +51,6 @@ export function figuresTable(r: PartResult, p: Painter): string {
 
 export const figuresCommand: Command = {
   name: 'figures',
-  summary: 'compute a part\'s figures over its measured units and check them against its limits',
   usage: 'scatterbook figures PART.yaml [--json] [--strict]',
   flags: FLAGS,
   async run(argv, t: Terminal) {

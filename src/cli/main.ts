@@ -3,14 +3,19 @@ import { relative } from 'node:path';
 import { describeFault } from '../io/fault.js';
 import { nearest, UsageError } from './args.js';
 import { EXIT, type Command, type ExitCode } from './command.js';
-import { buildCommand } from './build-command.js';
-import { figuresCommand } from './figures-command.js';
-import { readCommand } from './read-command.js';
-import { schemaCommand } from './schema-command.js';
-import { serveCommand } from './serve-command.js';
 import type { Terminal } from './terminal.js';
 
-export const COMMANDS: readonly Command[] = [buildCommand, serveCommand, readCommand, figuresCommand, schemaCommand];
+/**
+ * The commands, each loaded only when it runs: `read` and `figures` never load
+ * Eleventy, the browser driver or the plot stack, and `--help` loads nothing.
+ */
+export const COMMANDS: ReadonlyArray<{ readonly name: string; readonly summary: string; readonly load: () => Promise<Command> }> = [
+  { name: 'build', summary: 'build the datasheet site and PDFs of a content folder (default content/) into _site/', load: async () => (await import('./build-command.js')).buildCommand },
+  { name: 'serve', summary: 'preview the site on this machine, rebuilding when anything in the content folder changes', load: async () => (await import('./serve-command.js')).serveCommand },
+  { name: 'read', summary: 'show what a Touchstone file holds (ports, points, references, passivity, reciprocity)', load: async () => (await import('./read-command.js')).readCommand },
+  { name: 'figures', summary: 'compute a part\'s figures over its measured units and check them against its limits', load: async () => (await import('./figures-command.js')).figuresCommand },
+  { name: 'schema', summary: 'print the JSON Schema of part files (for editors)', load: async () => (await import('./schema-command.js')).schemaCommand },
+];
 
 export function usage(): string {
   const lines = ['scatterbook: checked RF component datasheets from Touchstone measurements', '', 'commands:'];
@@ -19,8 +24,8 @@ export function usage(): string {
   return lines.join('\n') + '\n';
 }
 
-function commandHelp(c: Command): string {
-  const lines = [`usage: ${c.usage}`, '', c.summary];
+function commandHelp(c: Command, summary: string): string {
+  const lines = [`usage: ${c.usage}`, '', summary];
   if (c.flags.length) {
     lines.push('', 'options:');
     for (const f of c.flags) lines.push(`  --${f.name}${f.value ? ' VALUE' : ''}`.padEnd(24) + f.help);
@@ -38,14 +43,15 @@ export async function main(argv: readonly string[], t: Terminal): Promise<ExitCo
     t.stdout.write(`${await version()}\n`);
     return EXIT.ok;
   }
-  const cmd = COMMANDS.find((c) => c.name === name);
-  if (!cmd) {
+  const entry = COMMANDS.find((c) => c.name === name);
+  if (!entry) {
     const near = nearest(name, COMMANDS.map((c) => c.name));
     t.stderr.write(`error: unknown command "${name}"${near ? `; did you mean "${near}"?` : ''}\n\n${usage()}`);
     return EXIT.usage;
   }
+  const cmd = await entry.load();
   if (rest.includes('--help')) {
-    t.stdout.write(commandHelp(cmd));
+    t.stdout.write(commandHelp(cmd, entry.summary));
     return EXIT.ok;
   }
   try {

@@ -96,7 +96,6 @@ export function readSummary(name: string, data: TouchstoneData, t: Terminal): st
 
 export const readCommand: Command = {
   name: 'read',
-  summary: 'show what a Touchstone file holds (ports, points, references, passivity, reciprocity)',
   usage: 'scatterbook read FILE [--json] [--ports N]',
   flags: FLAGS,
   run(argv, t) {

@@ -5,7 +5,6 @@ import { EXIT, type Command } from './command.js';
 
 export const schemaCommand: Command = {
   name: 'schema',
-  summary: 'print the JSON Schema of part files (for editors)',
   usage: 'scatterbook schema',
   flags: [],
   run(argv, t) {

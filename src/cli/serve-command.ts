@@ -23,7 +23,6 @@ const LOOPBACK = new Set(['127.0.0.1', 'localhost', '::1']);
 
 export const serveCommand: Command = {
   name: 'serve',
-  summary: 'preview the site on this machine, rebuilding when anything in the content folder changes',
   usage: 'scatterbook serve [CONTENT_DIR] [--port N] [--host ADDRESS] [--out DIR] [--no-cache] [--cache DIR]',
   flags: FLAGS,
   async run(argv, t) {

@@ -39,6 +39,13 @@ describe('the part file schema', () => {
       base.replace(/^class: \w+/m, 'class: filtre'),
       base.replace(/from: ([\d.]+) [GM]Hz/, 'from: $1'),
       base.replace(/^part: .*$/m, ''),
+      // malformed quantities: the sign class once was a range U+002B–U+2212 that let letters and ~ through
+      base.replace(/max: ([\d.]+) dB/, 'max: l5 dB'),
+      base.replace(/max: ([\d.]+) dB/, 'max: ~2.5 dB'),
+      base.replace(/from: ([\d.]+) ([GM]Hz)/, 'from: x$1 $2'),
+      // out of range
+      base.replace(/^date: .*$/m, 'date: 2026-1-5'),
+      base.replace(/^limits:/m, 'limits:\n  - {figure: group-delay, on: S21, band: passband, max: 5 ns, aperture: 1000}'),
     ];
     for (const text of broken) {
       expect(check(parse(text, { version: '1.2' }))).toBe(false);
