@@ -138,3 +138,13 @@ describe('reading part files', () => {
     ]);
   });
 });
+
+describe('custom figures under a quoted key', () => {
+  it('"custom-figures": is read like the plain key (the compiler is asked for, not a pattern on the text)', () => {
+    const text = `part: C-1\nclass: generic\nmeasurements:\n  - {unit: A, file: a.s4p}\n"custom-figures":\n  balance: {expression: "db(S31) - db(S41)", unit: dB, worse: higher}\nbands:\n  b: {from: 1 GHz, to: 2 GHz}\nlimits:\n  - {figure: balance, band: b, max: 1 dB}\n`;
+    const first = loadPartText(text, 'part.yaml');
+    expect(first.needsCompiler).toBe(true);
+    const second = loadPartText(text, 'part.yaml', () => ({ ok: false, message: 'no such function here' }));
+    expect(second.errors[0]).toMatchObject({ code: 'bad-expression', line: 6 });
+  });
+});
