@@ -42,6 +42,8 @@ export interface ClassDef {
   readonly plots: readonly PlotDef[];
   /** Figures of the headline table, in order. */
   readonly headline: readonly string[];
+  /** The figures of the class's main transmission limits: the first limit on one of them gives the default operating band. */
+  readonly transmission: readonly string[];
   readonly cautions: readonly string[];
 }
 
@@ -72,6 +74,7 @@ const RECORDS = [
       { figure: 'group-delay', on: ['S21'], range: 'limits' },
     ],
     headline: ['insertion-loss', 'return-loss', 'vswr', 'rejection', 'passband-ripple', 'group-delay-variation', 'group-delay'],
+    transmission: ['insertion-loss'],
     cautions: [POWER],
   },
   {
@@ -86,6 +89,7 @@ const RECORDS = [
       { figure: 'vswr', limitsFrom: ['vswr'], on: ['S11', 'S22'], range: 'all' },
     ],
     headline: ['insertion-loss', 'vswr', 'return-loss', 'passband-ripple'],
+    transmission: ['insertion-loss'],
     cautions: [POWER, HOT],
   },
   {
@@ -103,6 +107,7 @@ const RECORDS = [
       { figure: 'stability-mu', range: 'all', ports: [1, 2] },
     ],
     headline: ['gain', 'gain-flatness', 'return-loss', 'isolation', 'stability-k', 'stability-mu'],
+    transmission: ['gain'],
     cautions: [POWER, ESD, BIAS, HOT],
   },
   {
@@ -120,6 +125,7 @@ const RECORDS = [
       { figure: 'vswr', on: ['S11', 'S22', 'S33'], range: 'all' },
     ],
     headline: ['insertion-loss', 'excess-loss', 'amplitude-balance', 'phase-balance', 'isolation', 'vswr'],
+    transmission: ['insertion-loss', 'excess-loss'],
     cautions: [POWER],
   },
   {
@@ -136,6 +142,7 @@ const RECORDS = [
       { figure: 'return-loss', on: ['S11', 'S22'], range: 'all' },
     ],
     headline: ['coupling', 'coupling-flatness', 'directivity', 'mainline-loss', 'return-loss'],
+    transmission: ['coupling', 'mainline-loss'],
     cautions: [POWER, EXPOSURE],
   },
   {
@@ -153,6 +160,7 @@ const RECORDS = [
       { figure: 'return-loss', on: ['S11'], range: 'all' },
     ],
     headline: ['insertion-loss', 'amplitude-balance', 'phase-balance', 'isolation', 'return-loss'],
+    transmission: ['insertion-loss', 'amplitude-balance'],
     cautions: [POWER],
   },
   {
@@ -168,6 +176,7 @@ const RECORDS = [
       { figure: 'vswr', on: ['S11', 'S22'], range: 'all' },
     ],
     headline: ['insertion-loss', 'isolation', 'vswr', 'return-loss'],
+    transmission: ['insertion-loss'],
     cautions: [POWER, FERRITE, EXPOSURE],
   },
   {
@@ -183,6 +192,7 @@ const RECORDS = [
       { figure: 'vswr', on: ['S11', 'S22'], range: 'all' },
     ],
     headline: ['insertion-loss', 'isolation', 'vswr', 'return-loss'],
+    transmission: ['insertion-loss'],
     cautions: [POWER, FERRITE],
   },
   {
@@ -198,6 +208,7 @@ const RECORDS = [
       { figure: 'group-delay', on: ['S21'], range: 'all', title: 'Electrical delay', axis: 'Electrical delay' },
     ],
     headline: ['insertion-loss', 'vswr', 'return-loss', 'group-delay'],
+    transmission: ['insertion-loss'],
     cautions: [CABLE],
   },
   {
@@ -213,6 +224,7 @@ const RECORDS = [
       { figure: 'return-loss', on: ['S11', 'S22'], range: 'all' },
     ],
     headline: ['insertion-loss', 'isolation', 'return-loss', 'vswr'],
+    transmission: ['insertion-loss'],
     cautions: [POWER, ESD],
   },
   {
@@ -229,6 +241,7 @@ const RECORDS = [
       { figure: 'return-loss', on: ['S11'], range: 'all' },
     ],
     headline: ['amplitude-balance', 'phase-balance', 'insertion-loss', 'return-loss'],
+    transmission: ['amplitude-balance', 'insertion-loss'],
     cautions: [POWER],
   },
   {
@@ -240,6 +253,7 @@ const RECORDS = [
     phaseSplitDeg: 0,
     plots: [],
     headline: [],
+    transmission: [],
     cautions: [POWER],
   },
 ] as const satisfies readonly ClassDef[];
@@ -260,4 +274,4 @@ export function classOf(id: string): ClassDef {
 export const DOWNWARD = new Set(['insertion-loss', 'mainline-loss', 'isolation', 'rejection', 'coupling', 'return-loss', 'excess-loss']);
 
 export const CLOSING_CAUTION =
-  'The data are measurements of the units listed and are typical of the part; local codes and regulations and the application\'s own qualification govern its use.';
+  'Local safety codes, RF-exposure regulations and licensed practice govern installation and operation; where they are stricter than these cautions, they apply.';

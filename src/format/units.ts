@@ -35,3 +35,8 @@ export function fixed(v: number, decimals: number): string {
   const s = v.toFixed(decimals);
   return s.startsWith('-') ? (Number(s) === 0 ? s.slice(1) : `−${s.slice(1)}`) : s;
 }
+
+/** A band as text: "2.4 GHz to 2.5 GHz", or one frequency. */
+export function bandRange(fromHz: number, toHz: number): string {
+  return fromHz === toHz ? formatFrequency(fromHz) : `${formatFrequency(fromHz)} to ${formatFrequency(toHz)}`;
+}

@@ -1,4 +1,5 @@
 /** Figure values and limits as people read them in tables. */
+
 import type { Limit } from '../spec/normalize.js';
 import { fixed, formatFrequency } from './units.js';
 
@@ -56,3 +57,10 @@ export function formatNumber(v: number | null, unit: string, d: { scale: number 
   const decimals = unit === 'dB' || unit === 'deg' || (unit === 's' && d.scale === 1e12) ? 2 : 3;
   return fixed(v * d.scale, decimals);
 }
+
+export interface Cell {
+  readonly text: string;
+  /** The exact number behind the text (null where there is none). */
+  readonly value: number | null;
+}
+

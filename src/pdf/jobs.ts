@@ -9,24 +9,31 @@ export function pdfFileName(part: string, slug: string): string {
   return `${safe || slug}.pdf`;
 }
 
+/** parts/<slug>/<PART-NUMBER>-report.pdf */
+export const reportPdfFileName = (part: string, slug: string) => pdfFileName(part, slug).replace(/\.pdf$/, '-report.pdf');
+
 export function withPdfLinks(catalog: Catalog): Catalog {
-  const parts = catalog.parts.map((p) => ({ ...p, pdfUrl: `parts/${p.slug}/${pdfFileName(p.part, p.slug)}` }));
-  return { ...catalog, parts, byClass: catalog.byClass.map((g) => ({ ...g, parts: g.parts.map((p) => parts.find((q) => q.slug === p.slug) ?? p) })) };
+  const parts = catalog.parts.map((p) => ({ ...p, pdfUrl: `parts/${p.slug}/${pdfFileName(p.part, p.slug)}`, reportPdfUrl: p.reportUrl ? `parts/${p.slug}/${reportPdfFileName(p.part, p.slug)}` : null }));
+  const find = (p: Catalog['parts'][number]) => parts.find((q) => q.slug === p.slug) ?? p;
+  return { ...catalog, parts, reportParts: catalog.reportParts.map(find), byClass: catalog.byClass.map((g) => ({ ...g, parts: g.parts.map(find) })) };
 }
 
+/** The datasheet of every part, then its test report where reports are built. */
 export function printJobs(catalog: Catalog, root: string, version: string): PrintJob[] {
-  return catalog.parts.map((p) => ({
-    html: join(root, 'parts', p.slug, 'index.html'),
-    pdf: join(root, 'parts', p.slug, pdfFileName(p.part, p.slug)),
-    metadata: {
-      title: p.title ? `${p.part} — ${p.title}` : p.part,
-      subject: `${p.partClass} datasheet, revision ${p.revision || '—'}`,
+  return catalog.parts.flatMap((p) => {
+    const metadata = (what: string) => ({
+      title: `${p.title ? `${p.part} — ${p.title}` : p.part}${what === 'datasheet' ? '' : ` (${what})`}`,
+      subject: `${p.partClass} ${what}, revision ${p.revision || '—'}`,
       author: p.vendor,
-      keywords: [p.part, p.partClass, p.vendor],
+      keywords: [p.part, p.partClass, p.vendor, what],
       date: p.date || null,
       creator: `scatterbook ${version}`,
-    },
-    header: { left: p.vendor, right: `${p.part} · revision ${p.revision || '—'}${p.date ? ` · ${p.date}` : ''}` },
-    footer: `${p.part} datasheet`,
-  }));
+    });
+    // the vendor is named once, at the top of page 1; the running header carries the part
+    const header = { left: p.title || p.partClass, right: `${p.part} · revision ${p.revision || '—'}${p.date ? ` · ${p.date}` : ''}` };
+    const sheet: PrintJob = { html: join(root, 'parts', p.slug, 'index.html'), pdf: join(root, 'parts', p.slug, pdfFileName(p.part, p.slug)), metadata: metadata('datasheet'), header, footer: `${p.part} datasheet` };
+    if (!p.reportUrl) return [sheet];
+    const report: PrintJob = { html: join(root, 'parts', p.slug, 'report.html'), pdf: join(root, 'parts', p.slug, reportPdfFileName(p.part, p.slug)), metadata: metadata('test report'), header, footer: `${p.part} test report` };
+    return [sheet, report];
+  });
 }

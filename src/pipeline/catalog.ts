@@ -4,32 +4,26 @@
  * templates, which only place it. Eleventy receives this as global data.
  */
 import { existsSync, readdirSync, realpathSync, statSync } from 'node:fs';
-import { join, relative } from 'node:path';
+import { basename, join, relative, sep } from 'node:path';
 import type { CheckResult } from '../evaluate/evaluate.js';
 import { figuresJson } from '../evaluate/json.js';
 import { largest, smallest } from '../evaluate/stats.js';
-import { formatFrequency, trimNumber } from '../format/units.js';
-import { displayUnit, formatLimit, formatNumber, formatValue } from '../format/values.js';
+import { bandRange, formatFrequency, trimNumber } from '../format/units.js';
+import { formatLimit, formatValue, type Cell } from '../format/values.js';
+import { composeDisclaimer, conditionText, specification, type SpecGroup } from './specification.js';
 import { ieee370Quality } from '../network/ieee370.js';
 import { passivity, reciprocity } from '../network/quality.js';
-import { classOf } from '../classes/registry.js';
+import { CLASSES, classOf } from '../classes/registry.js';
 import { buildPlots } from '../plots/model.js';
 import { renderPlotAnywhere } from '../plots/pool.js';
 import { formatSpecError, type SpecError } from '../spec/diagnostics.js';
 import type { NormalizedPart } from '../spec/normalize.js';
-import type { Assurance } from '../spec/part-schema.js';
 import { cautionsFor } from '../site/cautions.js';
 import { renderMarkdown } from '../site/markdown.js';
 import { assetPathProblem, loadSettings, type SiteSettings } from '../site/settings.js';
 import { realPath, within } from '../io/output-folder.js';
 import { readYamlFile } from '../io/text-file.js';
 import { evaluatePartFile, type LoadedUnit, type StageTimes } from './part.js';
-
-export interface Cell {
-  readonly text: string;
-  /** The exact number behind the text (null where there is none). */
-  readonly value: number | null;
-}
 
 export interface ComplianceRow {
   readonly label: string;
@@ -45,24 +39,6 @@ export interface ComplianceRow {
   readonly margin: Cell;
   readonly verdict: 'PASS' | 'FAIL' | 'REPORT';
   readonly units: ReadonlyArray<{ readonly unit: string; readonly worst: Cell; readonly at: Cell; readonly margin: Cell; readonly verdict: 'PASS' | 'FAIL' | 'REPORT' }>;
-}
-
-/** A row of the specification table: a figure over a band, with its limits and its typical value. */
-export interface SpecRow {
-  readonly label: string;
-  readonly on: string;
-  /** Band and conditions, e.g. "2.40 GHz to 2.50 GHz" or "10 MHz to 6 GHz, temperature 85 °C". */
-  readonly conditions: string;
-  readonly min: Cell;
-  readonly typ: Cell;
-  readonly max: Cell;
-  readonly unit: string;
-  /** The footnote mark of how the limit is assured ('' when it is checked on the listed units only). */
-  readonly mark: string;
-  /** Where typical comes from when that needs saying: "at temperature 25 °C", "over mixed conditions". */
-  readonly typicalNote: string;
-  /** One line for the catalog index: "Insertion loss 0.92 dB typ, ≤ 1.20 dB max". */
-  readonly summary: string;
 }
 
 export interface PlotBlock {
@@ -103,6 +79,9 @@ export interface PartPage {
   readonly slug: string;
   readonly url: string;
   readonly pdfUrl: string | null;
+  /** The test report page (QA-facing), its PDF; null when site.yaml keeps reports out. */
+  readonly reportUrl: string | null;
+  readonly reportPdfUrl: string | null;
   readonly part: string;
   readonly title: string;
   readonly partClass: string;
@@ -117,7 +96,18 @@ export interface PartPage {
   readonly ports: ReadonlyArray<{ readonly number: number; readonly name: string }>;
   readonly pass: boolean;
   readonly frequencyRange: string;
-  readonly specification: readonly SpecRow[];
+  /** The band the part is specified for (operating-band, or the band of the class's main transmission limit), as text; '' when it has no limits. */
+  readonly operatingBand: string;
+  readonly features: readonly string[];
+  readonly weight: string;
+  /** The outline drawing's path in the site (under assets/), or ''. */
+  readonly outline: string;
+  readonly ordering: ReadonlyArray<{ readonly code: string; readonly description: string }>;
+  /** The published measurement files: where they come from (relative to the content folder) and their path in the site. */
+  readonly dataFiles: ReadonlyArray<{ readonly unit: string; readonly from: string; readonly url: string; readonly name: string }>;
+  /** Distinct units measured (a unit at three temperatures counts once). */
+  readonly unitCount: number;
+  readonly specification: readonly SpecGroup[];
   /** The conditions typical values are quoted at (typical-at), as text, or ''. */
   readonly typicalConditions: string;
   /** The closing disclaimer: the vendor's, or one composed from how the limits are assured. */
@@ -143,7 +133,9 @@ export interface PartFailure {
 export interface Catalog {
   readonly site: SiteSettings;
   readonly parts: readonly PartPage[];
-  readonly byClass: ReadonlyArray<{ readonly partClass: string; readonly parts: readonly PartPage[] }>;
+  /** The parts whose test report is built (all, or none when site.yaml sets reports: false). */
+  readonly reportParts: readonly PartPage[];
+  readonly byClass: ReadonlyArray<{ readonly partClass: string; readonly title: string; readonly parts: readonly PartPage[] }>;
   readonly failures: readonly PartFailure[];
   readonly generator: string;
 }
@@ -153,9 +145,6 @@ const cell = (v: number | null, unit: string): Cell => ({ text: formatValue(v, u
 const atCell = (hz: number | null): Cell => ({ text: hz === null ? '—' : formatFrequency(hz), value: hz });
 const verdictOf = (pass: boolean | null): 'PASS' | 'FAIL' | 'REPORT' => (pass === null ? 'REPORT' : pass ? 'PASS' : 'FAIL');
 
-export function bandRange(fromHz: number, toHz: number): string {
-  return fromHz === toHz ? formatFrequency(fromHz) : `${formatFrequency(fromHz)} to ${formatFrequency(toHz)}`;
-}
 
 function complianceRow(r: CheckResult): ComplianceRow {
   return {
@@ -174,69 +163,6 @@ function complianceRow(r: CheckResult): ComplianceRow {
     units: r.units.map((u) => ({ unit: u.unit, worst: cell(u.worst, r.unit), at: atCell(u.atHz), margin: cell(u.margin, r.unit), verdict: verdictOf(u.pass) })),
   };
 }
-
-/** Footnote marks of how a limit is assured. */
-export const ASSURANCE_MARKS: Readonly<Record<Assurance, string>> = { 'every-unit': '†', sample: '‡', design: '§' };
-const ASSURANCE_TEXT: Readonly<Record<Assurance, string>> = {
-  'every-unit': 'tested on every unit shipped',
-  sample: 'established by characterisation of a sample and not tested on every unit',
-  design: 'assured by design and not tested',
-};
-
-const conditionText = (c: Readonly<Record<string, string>>) => Object.entries(c).map(([k, v]) => `${k} ${v}`).join(', ');
-
-function specRow(r: CheckResult, when: Readonly<Record<string, string>> | null, typicalAt: Readonly<Record<string, string>> | null): SpecRow {
-  const l = r.limit;
-  const two = l?.tolerance !== undefined && l.nominal !== undefined;
-  const min = two ? (l.nominal as number) - (l.tolerance as number) : (l?.min ?? null);
-  const max = two ? (l.nominal as number) + (l.tolerance as number) : (l?.max ?? null);
-  const d = displayUnit([min, max, r.typical], r.unit);
-  const num = (v: number | null): Cell => ({ text: formatNumber(v, r.unit, d), value: v !== null && Number.isFinite(v) ? v : null });
-  // a two-sided typical is shown as its deviation from nominal, so that units on either side do not read as cancelling
-  const typ: Cell = two ? { text: `${formatNumber(l.nominal as number, r.unit, d)} ± ${formatNumber(Math.abs(r.typical - (l.nominal as number)), r.unit, d)}`, value: r.typical } : num(r.typical);
-  // the part's typical-at is stated once above the table; a row says more only where its typical differs from that
-  const typicalNote = r.typicalAt ? '' : typicalAt ? `typical over its own units (none measured at ${conditionText(typicalAt)})` : r.typicalMixed ? 'typical over units measured under different conditions' : '';
-  const conditions = [bandRange(r.fromHz, r.toHz), when ? conditionText(when) : ''].filter(Boolean).join(', ');
-  const limitText = max !== null && min !== null && !two ? `${formatLimit(r.limit, r.unit)}` : max !== null ? `≤ ${formatValue(max, r.unit)} max` : min !== null ? `≥ ${formatValue(min, r.unit)} min` : '';
-  return {
-    label: r.label,
-    on: r.on.join(', '),
-    conditions,
-    min: num(min),
-    typ,
-    max: num(max),
-    unit: d.label,
-    mark: r.assuredBy ? ASSURANCE_MARKS[r.assuredBy] : '',
-    typicalNote,
-    summary: `${r.label} ${two ? typ.text + ' ' + d.label : formatValue(r.typical, r.unit)} typ${limitText && !two ? `, ${limitText}` : ''}`,
-  };
-}
-
-/** The rows of the specification table: the class's headline figures in its order (or the first limits), then nothing else. */
-function specification(part: NormalizedPart, results: readonly CheckResult[]): SpecRow[] {
-  const order = classOf(part.partClass).headline;
-  const picked: CheckResult[] = [];
-  for (const id of order) for (const r of results) if (r.figure === id && !picked.includes(r)) picked.push(r);
-  const rows = picked.length ? picked : results.filter((r) => r.limit).slice(0, 5);
-  return rows.map((r) => specRow(r, part.checks[results.indexOf(r)]?.when ?? null, part.typicalAt));
-}
-
-/** The disclaimer a datasheet closes with: what its figures are, and what each mark in its table means. */
-export function composeDisclaimer(results: readonly CheckResult[]): string {
-  const used = ASSURANCES_IN_ORDER.filter((a) => results.some((r) => r.assuredBy === a));
-  const marks = used.map((a) => `limits marked ${ASSURANCE_MARKS[a]} are ${ASSURANCE_TEXT[a]}`);
-  const unmarked = results.some((r) => r.limit && !r.assuredBy);
-  return [
-    'Figures are computed from the measured units listed on this datasheet and describe those units.',
-    marks.length ? `${marks.join('; ').replace(/^l/, 'L')}.` : '',
-    unmarked ? `${marks.length ? 'Other limits are' : 'The limits are'} checked on those units only and are not a guarantee for other units.` : '',
-    'The application\'s own qualification and local codes and regulations govern use.',
-  ]
-    .filter(Boolean)
-    .join(' ');
-}
-
-const ASSURANCES_IN_ORDER: readonly Assurance[] = ['every-unit', 'sample', 'design'];
 
 function quality(part: NormalizedPart, u: LoadedUnit): QualityRow {
   const net = u.network;
@@ -286,6 +212,14 @@ function measurement(u: LoadedUnit, m: NormalizedPart['measurements'][number] | 
   };
 }
 
+/** "Z0 = 50 Ω" when every port of every unit has one reference, else each port's. */
+function referenceText(units: readonly LoadedUnit[]): string {
+  const all = new Set(units.flatMap((u) => Array.from(u.network.z0)));
+  if (all.size === 1) return `Z0 = ${trimNumber([...all][0])} Ω`;
+  const first = units[0]?.network.z0;
+  return first ? `Z0 = ${Array.from(first, (r) => `${trimNumber(r)}`).join(' / ')} Ω` : '';
+}
+
 export interface PartBuild {
   readonly page: PartPage | null;
   readonly failure: PartFailure | null;
@@ -300,6 +234,10 @@ export async function buildPartPage(partFile: string, contentRoot: string, slug:
   }
   const part = outcome.part;
   const result = outcome.result;
+  const outlineProblem = part.outline ? assetPathProblem('outline', part.outline, contentFile(contentRoot)) : null;
+  if (outlineProblem) {
+    return { page: null, failure: { slug, file: display, messages: [formatSpecError({ code: 'missing-file', file: display, message: outlineProblem, ...part.outlineAt }, outcome.source)] } };
+  }
   const tp = performance.now();
   const models = buildPlots(part, outcome.units);
   const svgs = await Promise.all(models.map((m) => renderPlotAnywhere(m, `${slug}-`)));
@@ -316,10 +254,29 @@ export async function buildPartPage(partFile: string, contentRoot: string, slug:
   if (times) times.plots += performance.now() - tp;
   const lo = largest(outcome.units.map((u) => u.network.freqHz[0]));
   const hi = smallest(outcome.units.map((u) => u.network.freqHz[u.network.freqHz.length - 1]));
+  const operating = part.operatingBand ?? defaultOperatingBand(part);
+  const seen = new Set<string>();
+  const dataFiles = settings.publishData
+    ? outcome.units.map((u) => {
+        let name = basename(u.path);
+        if (seen.has(name)) name = `${(u.serial ?? u.unit).replace(/[^A-Za-z0-9._-]+/g, '_')}-${name}`;
+        seen.add(name);
+        return { unit: u.unit, from: relative(contentRoot, u.path).split(sep).join('/'), url: `parts/${slug}/data/${name}`, name };
+      })
+    : [];
   const page: PartPage = {
     slug,
     url: `parts/${slug}/`,
     pdfUrl: null,
+    reportUrl: settings.reports ? `parts/${slug}/report.html` : null,
+    reportPdfUrl: null,
+    operatingBand: operating ? bandRange(operating.fromHz, operating.toHz) : '',
+    features: part.features,
+    weight: part.weight ?? '',
+    outline: part.outline ?? '',
+    ordering: part.ordering,
+    dataFiles,
+    unitCount: new Set(outcome.units.map((u) => u.serial)).size,
     part: part.part,
     title: part.title,
     partClass: part.partClass,
@@ -334,9 +291,9 @@ export async function buildPartPage(partFile: string, contentRoot: string, slug:
     ports: Array.from({ length: outcome.units[0]?.network.ports ?? 0 }, (_, i) => ({ number: i + 1, name: part.portNames[i + 1] ?? `Port ${i + 1}` })),
     pass: result.pass,
     frequencyRange: bandRange(lo, hi),
-    specification: specification(part, result.results),
+    specification: specification(part, result.results, referenceText(outcome.units)),
     typicalConditions: part.typicalAt ? conditionText(part.typicalAt) : '',
-    disclaimer: settings.disclaimer ?? composeDisclaimer(result.results),
+    disclaimer: settings.disclaimer ?? composeDisclaimer(result.results, part.declared.length > 0),
     compliance: result.results.map(complianceRow),
     plots,
     measurements: outcome.units.map((u, i) => measurement(u, part.measurements[i])),
@@ -367,6 +324,19 @@ export function partFolders(contentRoot: string): Array<{ slug: string; file: st
     .map((slug) => ({ slug, file: join(dir, slug, 'part.yaml') }));
 }
 
+/** Whether a path relative to the content folder names a regular file there ('outside' when a link leads out of it). */
+function contentFile(contentRoot: string): (rel: string) => boolean | 'outside' {
+  const content = realPath(contentRoot);
+  return (rel) => {
+    try {
+      if (!within(content, realpathSync(join(contentRoot, rel)))) return 'outside';
+      return statSync(join(contentRoot, rel)).isFile();
+    } catch {
+      return false;
+    }
+  };
+}
+
 /** content/site.yaml, parsed and checked (logo and stylesheet must be files of the content folder's assets/); `text` is '' when there is none (it also keys the cache). */
 export function readSettings(contentRoot: string): { settings: SiteSettings; errors: string[]; text: string } {
   const file = join(contentRoot, 'site.yaml');
@@ -376,29 +346,29 @@ export function readSettings(contentRoot: string): { settings: SiteSettings; err
   const text = read.ok ? read.text : null;
   const r = loadSettings(text, shown);
   const errors = [...r.errors];
-  const content = realPath(contentRoot);
-  const isFile = (rel: string): boolean | 'outside' => {
-    try {
-      if (!within(content, realpathSync(join(contentRoot, rel)))) return 'outside';
-      return statSync(join(contentRoot, rel)).isFile();
-    } catch {
-      return false;
-    }
-  };
   for (const key of ['logo', 'stylesheet'] as const) {
     const value = r.value[key];
-    const problem = value === null ? null : assetPathProblem(key, value, isFile);
+    const problem = value === null ? null : assetPathProblem(key, value, contentFile(contentRoot));
     if (problem) errors.push({ code: 'bad-value', file: shown, message: problem, ...(r.positions.get(key) ?? { line: 0, column: 0 }) });
   }
   return { settings: r.value, errors: errors.map((e) => formatSpecError(e, text ?? undefined)), text: text ?? '' };
 }
 
+/** The band of the class's main transmission limit (a filter's insertion-loss passband, an amplifier's gain band), else of the first limit. */
+function defaultOperatingBand(part: NormalizedPart): { fromHz: number; toHz: number } | null {
+  const main = classOf(part.partClass).transmission;
+  const limits = part.checks.filter((c) => c.kind === 'limit');
+  return (limits.find((c) => main.includes(c.figure.id)) ?? limits[0])?.band ?? null;
+}
+
 export function assembleCatalog(site: SiteSettings, parts: readonly PartPage[], failures: readonly PartFailure[], version: string): Catalog {
-  const classes = [...new Set(parts.map((p) => p.partClass))];
+  const present = new Set(parts.map((p) => p.partClass));
+  const order = [...site.classOrder, ...CLASSES.filter((c) => !site.classOrder.includes(c))].filter((c) => present.has(c));
   return {
     site,
     parts,
-    byClass: classes.map((c) => ({ partClass: c, parts: parts.filter((p) => p.partClass === c) })),
+    reportParts: site.reports ? parts : [],
+    byClass: order.map((c) => ({ partClass: c, title: classOf(c).title, parts: parts.filter((p) => p.partClass === c) })),
     failures,
     generator: `scatterbook ${version}`,
   };

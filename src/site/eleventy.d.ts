@@ -3,6 +3,7 @@ declare module '@11ty/eleventy' {
   export interface UserConfig {
     setLibrary(name: string, lib: unknown): void;
     addGlobalData(name: string, value: unknown): void;
+    addTransform(name: string, transform: (content: string, outputPath: string) => string): void;
     addPassthroughCopy(paths: string | Record<string, string>): void;
     addWatchTarget(path: string): void;
     setServerOptions(options: Record<string, unknown>): void;

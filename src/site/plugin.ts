@@ -47,6 +47,13 @@ export function handedCatalog(): { content: string; catalog: Catalog } | null {
   return handed;
 }
 
+const UNIT_AFTER_NUMBER = /(\d) (?=(?:dBm|dBc|dB|GHz|MHz|kHz|Hz|ns|ps|µs|us|ms|°C|°|Ω|mW|W|mA|A|mV|V|mm|g)(?![A-Za-z]))/g;
+
+/** HTML with a no-break space between each number and the unit after it, in text only: never inside a tag (attributes keep their values) or a script. */
+export function noBreakUnits(html: string): string {
+  return html.replace(/(<script\b[\s\S]*?<\/script>)|(<[^>]*>)|([^<]+)/g, (all, script, tag, text) => (text ? text.replace(UNIT_AFTER_NUMBER, '$1\u00a0') : all));
+}
+
 export function templateSearchPath(content: string): string[] {
   const own = join(content, '_includes');
   return existsSync(own) ? [own, INCLUDES_DIR] : [INCLUDES_DIR];
@@ -60,15 +67,23 @@ export function scatterbookSite(config: UserConfig, options: SitePluginOptions):
     lstripBlocks: true,
   });
   config.setLibrary('njk', env);
-  config.addGlobalData('catalog', typeof options.catalog === 'function' ? options.catalog : () => options.catalog);
+  let resolved: Promise<Catalog> | null = null;
+  const catalog = () => (resolved ??= typeof options.catalog === 'function' ? options.catalog() : Promise.resolve(options.catalog));
+  config.addGlobalData('catalog', catalog);
+  // a number and its unit never part at a line end: "2.45 GHz", "1.2 dB", "25 °C", "50 Ω" get a no-break space
+  config.addTransform('number-unit-no-break', (content: string, outputPath: string) => (typeof outputPath === 'string' && outputPath.endsWith('.html') ? noBreakUnits(content) : content));
   config.addPassthroughCopy({ [ASSETS_DIR]: 'assets' });
   for (const f of fontFiles()) config.addPassthroughCopy({ [f.from]: f.to });
   // the vendor's assets: regular files only, never a link out of the content folder (see io/assets.ts)
-  config.on('eleventy.after', (...args: unknown[]) => {
+  config.on('eleventy.after', async (...args: unknown[]) => {
     const { directories } = args[0] as { directories: { output: string } };
+    const out = resolve(directories.output);
     const plan = planAssets(options.content);
     if (plan.errors.length) throw new Error(plan.errors.join('\n'));
-    copyAssets(plan, resolve(directories.output));
+    copyAssets(plan, out);
+    // the measured Touchstone files the datasheets link ("S-parameter data"), unless site.yaml keeps them out
+    const files = (await catalog()).parts.flatMap((p) => p.dataFiles.map((d) => ({ from: join(options.content, d.from), to: d.url })));
+    copyAssets({ files, errors: [] }, out);
   });
   // Eleventy reads watch targets relative to the working folder
   config.addWatchTarget(relative(process.cwd(), options.content) || '.');

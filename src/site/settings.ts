@@ -4,6 +4,7 @@
  * language as part files.
  */
 import { LineCounter, parseDocument } from 'yaml';
+import { CLASSES } from '../classes/registry.js';
 import type { Position, SpecError } from '../spec/diagnostics.js';
 import type { Schema } from '../spec/schema-dsl.js';
 import { validate, type Plain } from '../spec/validate.js';
@@ -20,6 +21,12 @@ export interface SiteSettings {
   readonly disclaimer: string | null;
   readonly baseUrl: string;
   readonly stylesheet: string | null;
+  /** Build the QA-facing test reports (page and PDF) of every part. */
+  readonly reports: boolean;
+  /** Publish the measured Touchstone files and link them from the datasheet. */
+  readonly publishData: boolean;
+  /** The order of the classes on the index (unlisted classes follow in the registry's order). */
+  readonly classOrder: readonly string[];
 }
 
 export const SITE_SCHEMA: Schema = {
@@ -35,11 +42,14 @@ export const SITE_SCHEMA: Schema = {
     disclaimer: { t: 'string', description: 'the disclaimer under every datasheet, replacing the one each datasheet composes from how its limits are assured' },
     'base-url': { t: 'string', description: 'where the site will be published, e.g. https://example.invalid/datasheets/' },
     stylesheet: { t: 'string', description: 'an extra stylesheet in the content folder\'s assets/, relative to the content folder (e.g. assets/vendor.css)' },
+    reports: { t: 'boolean', description: 'true (default) to build each part\'s test report, page and PDF; false keeps them out of a public build' },
+    'publish-data': { t: 'boolean', description: 'true (default) to publish the measured Touchstone files and link them from the datasheet; false keeps them out' },
+    'class-order': { t: 'array', items: { t: 'string', enum: CLASSES, description: 'a class' }, description: 'the order of the classes on the index (default: filters, attenuators, amplifiers, dividers, couplers, hybrids, circulators, isolators, cables, switches, baluns, others)' },
   },
 };
 
 export function defaultSettings(): SiteSettings {
-  return { vendor: 'Datasheets', tagline: '', logo: null, accent: '#1f4e8c', paper: 'A4', footer: '', disclaimer: null, baseUrl: '/', stylesheet: null };
+  return { vendor: 'Datasheets', tagline: '', logo: null, accent: '#1f4e8c', paper: 'A4', footer: '', disclaimer: null, baseUrl: '/', stylesheet: null, reports: true, publishData: true, classOrder: CLASSES };
 }
 
 export function loadSettings(text: string | null, file: string): { value: SiteSettings; errors: SpecError[]; positions: ReadonlyMap<string, Position> } {
@@ -66,6 +76,9 @@ export function loadSettings(text: string | null, file: string): { value: SiteSe
       disclaimer: s('disclaimer') ?? d.disclaimer,
       baseUrl: s('base-url') ?? d.baseUrl,
       stylesheet: s('stylesheet') ?? null,
+      reports: v.reports !== false,
+      publishData: v['publish-data'] !== false,
+      classOrder: Array.isArray(v['class-order']) ? (v['class-order'].filter((c) => typeof c === 'string') as string[]) : d.classOrder,
     },
     errors: r.errors,
     positions: r.positions,

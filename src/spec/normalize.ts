@@ -30,6 +30,11 @@ export interface NormalizedMeasurement {
   readonly file: string;
   readonly conditions: Readonly<Record<string, string>>;
   readonly notes: string | null;
+  /** Measurement metadata, as written (each optional). */
+  readonly instrument: string | null;
+  readonly calibration: string | null;
+  readonly date: string | null;
+  readonly operator: string | null;
   readonly at: Position;
   readonly fileAt: Position;
 }
@@ -61,6 +66,16 @@ export interface NormalizedCheck {
   readonly onAt: Position;
 }
 
+/** A specification the vendor declares (no Touchstone file carries it): values as written. */
+export interface DeclaredSpec {
+  readonly parameter: string;
+  readonly min: string | null;
+  readonly typ: string | null;
+  readonly max: string | null;
+  readonly unit: string;
+  readonly conditions: string | null;
+}
+
 export interface NormalizedPart {
   readonly file: string;
   readonly part: string;
@@ -89,6 +104,15 @@ export interface NormalizedPart {
   readonly checks: readonly NormalizedCheck[];
   readonly ratings: ReadonlyArray<{ readonly parameter: string; readonly value: string; readonly notes: string | null }>;
   readonly cautions: readonly string[];
+  /** operating-band, resolved (null: the class's default, chosen where the limits are known). */
+  readonly operatingBand: NormalizedBand | null;
+  readonly features: readonly string[];
+  readonly weight: string | null;
+  /** outline: an image path relative to the content folder (checked by the shell), and where it is written. */
+  readonly outline: string | null;
+  readonly outlineAt: Position;
+  readonly ordering: ReadonlyArray<{ readonly code: string; readonly description: string }>;
+  readonly declared: ReadonlyArray<DeclaredSpec>;
   /** The part file as written (after schema checks), for pages that show it. */
   readonly spec: Readonly<Record<string, Plain>>;
 }
@@ -164,7 +188,7 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
       const key = `${unit}\u0000${JSON.stringify(Object.entries(conditions).sort())}`;
       if (seen.has(key)) err('duplicate', `measurements.${i}.unit`, `unit ${unit} is listed twice under the same conditions (entries ${(seen.get(key) as number) + 1} and ${i + 1}); list each measurement once`);
       seen.set(key, i);
-      measurements.push({ unit, label: unit, file: m.file, conditions, notes: str(m.notes), at: at(`measurements.${i}`), fileAt: at(`measurements.${i}.file`) });
+      measurements.push({ unit, label: unit, file: m.file, conditions, notes: str(m.notes), instrument: str(m.instrument), calibration: str(m.calibration), date: str(m.date), operator: str(m.operator), at: at(`measurements.${i}`), fileAt: at(`measurements.${i}.file`) });
     });
   }
   // where a serial repeats, results name the measurement by serial and conditions: "SN3001 @ 85 °C"
@@ -380,6 +404,16 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
   const ratings = Array.isArray(spec.ratings)
     ? spec.ratings.filter(isObj).map((r) => ({ parameter: String(r.parameter ?? ''), value: String(r.value ?? ''), notes: str(r.notes) }))
     : [];
+  let operatingBand: NormalizedBand | null = null;
+  if (typeof spec['operating-band'] === 'string') {
+    const name = spec['operating-band'];
+    operatingBand = bands.get(name) ?? null;
+    if (!operatingBand && !brokenBands.has(name)) {
+      const near = nearest(name, bands.keys());
+      err('unknown-band', 'operating-band', `operating-band "${name}" is not a band of this part${near ? `; did you mean "${near}"?` : bands.size ? `; the bands are ${[...bands.keys()].join(', ')}` : '; define it under bands:'}`);
+    }
+  }
+  const plainText = (v: Plain | undefined) => (v === undefined || v === null ? null : String(v));
   const value: NormalizedPart = {
     file: input.file,
     part: str(spec.part) ?? '',
@@ -405,6 +439,15 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
     checks,
     ratings,
     cautions: Array.isArray(spec.cautions) ? spec.cautions.filter((c): c is string => typeof c === 'string') : [],
+    operatingBand,
+    features: Array.isArray(spec.features) ? spec.features.filter((c): c is string => typeof c === 'string') : [],
+    weight: str(spec.weight),
+    outline: str(spec.outline),
+    outlineAt: at('outline'),
+    ordering: Array.isArray(spec.ordering) ? spec.ordering.filter(isObj).map((o) => ({ code: String(o.code ?? ''), description: String(o.description ?? '') })) : [],
+    declared: Array.isArray(spec.declared)
+      ? spec.declared.filter(isObj).map((d) => ({ parameter: String(d.parameter ?? ''), min: plainText(d.min), typ: plainText(d.typ), max: plainText(d.max), unit: String(d.unit ?? ''), conditions: str(d.conditions) }))
+      : [],
     spec,
   };
   if (needsCompiler) return { value: null, errors: [], needsCompiler };

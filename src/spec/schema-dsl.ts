@@ -14,6 +14,7 @@ export type Schema =
   | (Base & { readonly t: 'integer'; readonly min?: number; readonly max?: number })
   | (Base & { readonly t: 'quantity'; readonly kinds?: readonly QuantityKind[] })
   | (Base & { readonly t: 'scalar' })
+  | (Base & { readonly t: 'boolean' })
   | (Base & { readonly t: 'object'; readonly fields: Readonly<Record<string, Field>> })
   | (Base & { readonly t: 'map'; readonly keys: 'integer' | 'name'; readonly value: Schema })
   | (Base & { readonly t: 'array'; readonly items: Schema; readonly minItems?: number; readonly maxItems?: number })
@@ -43,6 +44,8 @@ export function toJsonSchema(s: Schema): Json {
     }
     case 'scalar':
       return { ...d, type: ['string', 'number', 'boolean'] };
+    case 'boolean':
+      return { ...d, type: 'boolean' };
     case 'object': {
       const required = Object.entries(s.fields).filter(([, f]) => f.required).map(([k]) => k);
       return {

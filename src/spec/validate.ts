@@ -43,6 +43,8 @@ const describe = (s: Schema): string => {
       return s.kinds ? s.kinds.map((k) => KIND_NAMES[k]).join(' or ') : 'a number with its unit';
     case 'scalar':
       return 'a value';
+    case 'boolean':
+      return 'true or false';
     case 'object':
     case 'map':
       return 'a mapping (key: value)';
@@ -90,9 +92,11 @@ export function validate(root: Node | null, schema: Schema, file: string, lines:
       case 'text':
       case 'integer':
       case 'scalar':
+      case 'boolean':
       case 'quantity': {
         if (!node || !isScalar(node) || node.value === null) return wrong();
         const v = node.value;
+        if (s.t === 'boolean') return typeof v === 'boolean' ? v : wrong();
         if (s.t === 'string') {
           if (typeof v !== 'string') return wrong();
           if (s.enum && !s.enum.includes(v)) {

@@ -36,7 +36,7 @@ describe('the class registry', () => {
     }
     for (const h of c.headline) expect(FIGURES.has(h), h).toBe(true);
     expect(c.cautions.length).toBeGreaterThan(0);
-    expect(cautionsFor(id, []).at(-1)).toContain('local codes and regulations');
+    expect(cautionsFor(id, []).at(-1)).toContain('Local safety codes, RF-exposure regulations and licensed practice');
     expect(Number.isInteger(c.ways(4)) && c.ways(4) >= 1).toBe(true);
   });
 

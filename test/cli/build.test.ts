@@ -107,7 +107,7 @@ describe('scatterbook build', () => {
     writeFileSync(yaml, readFileSync(yaml, 'utf8').replace('max: 5.2 dB', 'max: 5.3 dB'));
     const r = run(args);
     expect(r.stdout).toContain('(1 unchanged, from the cache)');
-    expect(readFileSync(join(dir, 'site-cache/parts/vt-cbl-150/index.html'), 'utf8')).toContain('≤ 5.30 dB');
+    expect(readFileSync(join(dir, 'site-cache/parts/vt-cbl-150/index.html'), 'utf8')).toContain('≤ 5.30\u00a0dB');
   });
 
   it('the cache never serves a stale page: an edit in place with the same size and time, site settings, template overrides', () => {

@@ -62,7 +62,7 @@ describe('scatterbook serve', () => {
       const r = await fetch(url);
       return r.ok ? r.text() : null;
     }, 60_000);
-    expect(first).toContain('Fixed attenuator, 10 dB');
+    expect(first).toContain('Fixed attenuator, 10\u00a0dB');
     const yaml = join(dir, 'content/parts/vt-att-10/part.yaml');
     writeFileSync(yaml, readFileSync(yaml, 'utf8').replace('title: Fixed attenuator, 10 dB, DC–18 GHz', 'title: Fixed attenuator, 10 dB, edited while serving'));
     const second = await until(async () => {

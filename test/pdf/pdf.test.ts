@@ -46,74 +46,88 @@ describe.skipIf(!haveBrowser || !havePoppler)('PDF datasheets', () => {
   it('the build prints one PDF per part and the pages link them', () => {
     expect(build.stderr.split('\n').filter((l) => l && !l.startsWith('warning: VT-ATT-10 fails'))).toEqual([]); // the demo's one failing unit is warned about
     expect(build.status).toBe(0);
-    expect(build.stdout).toMatch(/built 8 parts, 8 PDFs \([\d.]+ per second after the browser started\)/);
+    expect(build.stdout).toMatch(/built 8 parts, 16 PDFs \([\d.]+ per second after the browser started\)/);
     const index = readFileSync(join(dir, 'site/index.html'), 'utf8');
     for (const slug of slugs) expect(index).toContain(`href="parts/${slug}/${slug.toUpperCase()}.pdf"`);
+    for (const slug of slugs) expect(existsSync(join(dir, 'site/parts', slug, `${slug.toUpperCase()}-report.pdf`)), `${slug} report PDF`).toBe(true);
     expect(readFileSync(join(dir, 'site/parts/vt-bpf-2450/index.html'), 'utf8')).toContain('href="../../parts/vt-bpf-2450/VT-BPF-2450.pdf"');
   });
 
+  /** The part with the most plots and rows, allowed three datasheet pages; every other datasheet fits in two (issue 10's page budget). */
+  const LARGEST = 'vt-amp-0560';
+
   for (const slug of slugs) {
-    it(`${slug}: metadata, part number on every page, every compliance value, text inside the page, a first page that is not blank`, () => {
+    it(`${slug}: the datasheet in at most ${slug === LARGEST ? 3 : 2} pages and the test report: metadata, part number on every page, every specification and compliance value, text inside the page, a first page that is not blank`, () => {
       const part = slug.toUpperCase();
-      const pdf = join(dir, 'site/parts', slug, `${part}.pdf`);
       const yaml = readFileSync(join(ROOT, 'content/parts', slug, 'part.yaml'), 'utf8');
       const title = /^title: (.*)$/m.exec(yaml)?.[1] as string;
       const date = /^date: (.*)$/m.exec(yaml)?.[1] as string;
-      const meta = info(pdf);
-      expect(meta.Title).toBe(`${part} — ${title}`);
-      expect(meta.Author).toBe('Veltrane Microwave');
-      expect(meta.Keywords).toContain(part);
-      expect(meta.CreationDate).toBe(`${date}T00:00:00Z`); // the part's date, not the clock
-      expect(meta['Page size']).toContain('(A4)');
-      const pages = Number(meta.Pages);
-      expect(pages).toBeGreaterThanOrEqual(2);
-      expect(pages).toBeLessThanOrEqual(12);
-      for (let p = 1; p <= pages; p++) {
-        const text = execFileSync('pdftotext', ['-f', String(p), '-l', String(p), '-layout', pdf, '-'], { encoding: 'utf8' });
-        expect(text, `${part} page ${p}`).toContain(part);
-        expect(text).toContain(`page ${p} of ${pages}`);
-      }
-      // every number of the compliance table, as the table formats it: whole tokens ("0.25" does not match
-      // "10.25"), in table order from the table's heading on (typical, worst, margin of each row, then the
-      // worst and margin of each of its units), so each is found in its own row, not anywhere in the document
-      const layout = execFileSync('pdftotext', ['-layout', pdf, '-'], { encoding: 'utf8' });
-      const table = layout.slice(layout.search(/^\s*Compliance\s*$/m)).replace(/\s+/g, ' ');
-      expect(table.length).toBeGreaterThan(20);
       const json = JSON.parse(execFileSync(process.execPath, [BIN, 'figures', join(ROOT, 'content/parts', slug, 'part.yaml'), '--json'], { encoding: 'utf8' }));
-      let pos = 0;
-      const next = (v: number, unit: string, what: string) => {
-        const text = formatValue(v, unit);
-        const re = new RegExp(`(?<=^| )${text.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}(?= |$)`, 'g');
-        re.lastIndex = pos;
-        const m = re.exec(table);
-        expect(m, `${part} ${what}: ${text} after position ${pos}`).not.toBeNull();
-        pos = (m as RegExpExecArray).index + text.length;
+      const check = (pdf: string, what: string, maxPages: number) => {
+        const meta = info(pdf);
+        expect(meta.Title).toBe(`${part} — ${title}${what === 'datasheet' ? '' : ` (${what})`}`);
+        expect(meta.Author).toBe('Veltrane Microwave');
+        expect(meta.Keywords).toContain(part);
+        expect(meta.CreationDate).toBe(`${date}T00:00:00Z`); // the part's date, not the clock
+        expect(meta['Page size']).toContain('(A4)');
+        const pages = Number(meta.Pages);
+        expect(pages, `${part} ${what} pages`).toBeGreaterThanOrEqual(1);
+        expect(pages, `${part} ${what} pages`).toBeLessThanOrEqual(maxPages);
+        for (let p = 1; p <= pages; p++) {
+          const text = execFileSync('pdftotext', ['-f', String(p), '-l', String(p), '-layout', pdf, '-'], { encoding: 'utf8' });
+          expect(text, `${part} page ${p}`).toContain(part);
+          expect(text).toContain(`page ${p} of ${pages}`);
+        }
+        // no word outside the page box
+        const bbox = execFileSync('pdftotext', ['-bbox', pdf, '-'], { encoding: 'utf8' });
+        const page = /<page width="([\d.]+)" height="([\d.]+)"/.exec(bbox) as RegExpExecArray;
+        const [w, h] = [Number(page[1]), Number(page[2])];
+        for (const m of bbox.matchAll(/<word xMin="([\d.-]+)" yMin="([\d.-]+)" xMax="([\d.-]+)" yMax="([\d.-]+)">([^<]*)</g)) {
+          const [x0, y0, x1, y1] = [m[1], m[2], m[3], m[4]].map(Number);
+          expect(x0 >= 0 && y0 >= 0 && x1 <= w && y1 <= h, `${part}: "${m[5]}" at ${x0},${y0}–${x1},${y1} leaves the ${w}×${h} page`).toBe(true);
+        }
+        // the first page, rendered, is not blank
+        const pgm = execFileSync('pdftoppm', ['-f', '1', '-l', '1', '-r', '30', '-gray', pdf], { maxBuffer: 1 << 26 });
+        const hm = /^P5\s+(\d+)\s+(\d+)\s+255\s/.exec(pgm.subarray(0, 50).toString('latin1')) as RegExpExecArray;
+        const pixels = pgm.subarray(hm[0].length);
+        let ink = 0;
+        for (const px of pixels) if (px < 200) ink++;
+        expect(ink / pixels.length).toBeGreaterThan(0.01);
+        // whole tokens ("0.25" does not match "10.25"), in table order from a heading on
+        const layout = execFileSync('pdftotext', ['-layout', pdf, '-'], { encoding: 'utf8' });
+        return (heading: RegExp) => {
+          const table = layout.slice(layout.search(heading)).replace(/\s+/g, ' ');
+          expect(table.length, `${part} ${what}: ${heading}`).toBeGreaterThan(20);
+          let pos = 0;
+          return (text: string, label: string) => {
+            const re = new RegExp(`(?<=^| )${text.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}(?= |$)`, 'g');
+            re.lastIndex = pos;
+            const m = re.exec(table);
+            expect(m, `${part} ${what} ${label}: ${text} after position ${pos}`).not.toBeNull();
+            pos = (m as RegExpExecArray).index + text.length;
+          };
+        };
       };
+
+      // the datasheet: the specification table's typical values, as the page prints them, in its row order
+      const sheet = check(join(dir, 'site/parts', slug, `${part}.pdf`), 'datasheet', slug === LARGEST ? 3 : 2);
+      const html = readFileSync(join(dir, 'site/parts', slug, 'index.html'), 'utf8');
+      const next = sheet(/^\s*Electrical specifications\s*$/m);
+      const typicals = [...html.matchAll(/<td class="num" data-key="typical" data-value="([^"]+)">([^<]*)<\/td>/g)];
+      expect(typicals.length, `${part}: typical values in the specification table`).toBeGreaterThan(0);
+      for (const m of typicals) next(m[2].replace(/\s+/g, ' '), `typical ${m[1]}`);
+
+      // the test report: typical, worst, margin of each row, then the worst and margin of each of its units
+      const inReport = check(join(dir, 'site/parts', slug, `${part}-report.pdf`), 'test report', 8)(/^\s*Compliance\s*$/m);
       for (const r of json.results as Array<{ figure: string; unit: string; typical: number; worst: number; margin: number | null; units: Array<{ unit: string; worst: number; margin: number | null }> }>) {
-        next(r.typical, r.unit, `${r.figure} typical`);
-        next(r.worst, r.unit, `${r.figure} worst`);
-        if (r.margin !== null) next(r.margin, r.unit, `${r.figure} margin`);
+        inReport(formatValue(r.typical, r.unit), `${r.figure} typical`);
+        inReport(formatValue(r.worst, r.unit), `${r.figure} worst`);
+        if (r.margin !== null) inReport(formatValue(r.margin, r.unit), `${r.figure} margin`);
         for (const u of r.units) {
-          next(u.worst, r.unit, `${r.figure} ${u.unit} worst`);
-          if (u.margin !== null) next(u.margin, r.unit, `${r.figure} ${u.unit} margin`);
+          inReport(formatValue(u.worst, r.unit), `${r.figure} ${u.unit} worst`);
+          if (u.margin !== null) inReport(formatValue(u.margin, r.unit), `${r.figure} ${u.unit} margin`);
         }
       }
-      // no word outside the page box
-      const bbox = execFileSync('pdftotext', ['-bbox', pdf, '-'], { encoding: 'utf8' });
-      const page = /<page width="([\d.]+)" height="([\d.]+)"/.exec(bbox) as RegExpExecArray;
-      const [w, h] = [Number(page[1]), Number(page[2])];
-      for (const m of bbox.matchAll(/<word xMin="([\d.-]+)" yMin="([\d.-]+)" xMax="([\d.-]+)" yMax="([\d.-]+)">([^<]*)</g)) {
-        const [x0, y0, x1, y1] = [m[1], m[2], m[3], m[4]].map(Number);
-        expect(x0 >= 0 && y0 >= 0 && x1 <= w && y1 <= h, `${part}: "${m[5]}" at ${x0},${y0}–${x1},${y1} leaves the ${w}×${h} page`).toBe(true);
-      }
-      // the first page, rendered, has ink on it
-      const pgm = execFileSync('pdftoppm', ['-gray', '-r', '30', '-f', '1', '-l', '1', pdf]);
-      const header = pgm.subarray(0, 40).toString('latin1');
-      const hm = /^P5\s+(\d+)\s+(\d+)\s+255\s/.exec(header) as RegExpExecArray;
-      const pixels = pgm.subarray(hm[0].length);
-      let ink = 0;
-      for (const px of pixels) if (px < 200) ink++;
-      expect(ink / pixels.length).toBeGreaterThan(0.01);
     });
   }
 

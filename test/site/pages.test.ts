@@ -2,8 +2,10 @@
  * The built demo site in a real browser (Debian's Chromium through
  * puppeteer-core) over a real local HTTP server: no console errors, no failed
  * requests, every plot has its traces and limit regions and is labelled for
- * screen readers, and every number of each compliance table equals what
- * `scatterbook figures --json` gives for that part.
+ * screen readers; each datasheet's specification table (typical, min, max in
+ * the row of its result) and each test report's compliance table (every unit
+ * row) equal what `scatterbook figures --json` gives for that part; the
+ * published Touchstone files download.
  */
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readdirSync } from 'node:fs';
@@ -33,6 +35,16 @@ afterAll(async () => {
   await browser?.close();
   await server?.close();
 });
+
+interface FiguresJson {
+  results: Array<{ figure: string; limit: { max?: number; min?: number; nominal?: number; tolerance?: number } | null; typical: number; worst: number; worstAtHz: number | null; margin: number | null; pass: boolean | null; units: Array<{ unit: string; worst: number; atHz: number | null; margin: number | null; pass: boolean | null }> }>;
+}
+
+/** What `scatterbook figures --json` says of a demo part. */
+function figuresJson(slug: string): FiguresJson {
+  const cli = spawnSync(process.execPath, [BIN, 'figures', join(ROOT, 'content/parts', slug, 'part.yaml'), '--json'], { encoding: 'utf8' });
+  return JSON.parse(cli.stdout) as FiguresJson;
+}
 
 interface PageReport {
   errors: string[];
@@ -65,18 +77,20 @@ describe.skipIf(!haveBrowser)('the demo site in Chromium', () => {
   });
 
   for (const slug of slugs) {
-    it(`${slug}: every section, plots with traces and limit regions, table numbers equal figures --json`, async () => {
+    it(`${slug} datasheet: its sections, plots with traces and limit regions, specification numbers equal figures --json, data files that download`, async () => {
       const { page, report } = await open(`parts/${slug}/index.html`);
-      for (const id of ['part-number', 'compliance-title', 'plots-title', 'ports-title', 'measurements-title', 'quality-title', 'ratings-title']) {
+      for (const id of ['part-number', 'headline-title', 'plots-title', 'ports-title', 'ratings-title']) {
         expect(await page.$(`#${id}`), `${slug}: section #${id}`).not.toBeNull();
       }
+      // what the customer's datasheet leaves to the test report
+      for (const id of ['compliance-title', 'measurements-title', 'quality-title']) expect(await page.$(`#${id}`), `${slug}: no #${id} on the datasheet`).toBeNull();
       const plots = await page.$$eval('figure.plot > svg', (svgs) =>
         svgs.map((s) => ({
           title: s.querySelector('title')?.textContent ?? '',
           desc: s.querySelector('desc')?.textContent ?? '',
           role: s.getAttribute('role'),
           median: s.querySelectorAll('.median_traces_marks path').length,
-          regions: s.querySelectorAll('.limit_regions_marks path').length,
+          regions: s.querySelectorAll('.limit_regions_marks path').length + s.querySelectorAll('.series_limit_edges_marks line, .series_limit_edges_marks path').length,
         })),
       );
       expect(plots.length, `${slug}: plots`).toBeGreaterThanOrEqual(2);
@@ -86,11 +100,46 @@ describe.skipIf(!haveBrowser)('the demo site in Chromium', () => {
         expect(p.desc).toContain('measured unit');
         expect(p.median, `${slug} ${p.title}: traces`).toBeGreaterThan(0);
       }
-      expect(plots.some((p) => p.regions > 0), `${slug}: some plot shows limit regions`).toBe(true);
+      expect(plots.some((p) => p.regions > 0), `${slug}: some plot shows limits`).toBe(true);
+      // the specification table: typical and limits in the row of their result
+      const json = figuresJson(slug);
+      const rows = await page.$$eval('tr.spec-row[data-result]', (trs) =>
+        trs.map((tr) => {
+          const num = (key: string) => {
+            const v = tr.querySelector(`[data-key="${key}"]`)?.getAttribute('data-value');
+            return v === null || v === undefined ? null : Number(v);
+          };
+          return { result: Number(tr.getAttribute('data-result')), min: num('min'), typ: num('typical'), max: num('max') };
+        }),
+      );
+      expect(rows.length, `${slug}: specification rows`).toBeGreaterThan(0);
+      for (const row of rows) {
+        const r = json.results[row.result];
+        const l = r.limit ?? {};
+        const two = l.tolerance !== undefined && l.nominal !== undefined;
+        expect(row.typ, `${slug} ${r.figure} typical`).toBe(r.typical);
+        expect(row.min, `${slug} ${r.figure} min`).toBe(two ? (l.nominal as number) - (l.tolerance as number) : (l.min ?? null));
+        expect(row.max, `${slug} ${r.figure} max`).toBe(two ? (l.nominal as number) + (l.tolerance as number) : (l.max ?? null));
+      }
+      const links = await page.$$eval('.data-files a', (as) => as.map((a) => (a as HTMLAnchorElement).href));
+      expect(links.length, `${slug}: S-parameter data links`).toBeGreaterThan(0);
+      for (const href of links) {
+        const res = await fetch(href);
+        expect(res.status, href).toBe(200);
+        expect((await res.text()).includes('#'), `${href} is a Touchstone file`).toBe(true);
+      }
+      expect(report.errors).toEqual([]);
+      expect(report.failed).toEqual([]);
+      await page.close();
+    });
 
+    it(`${slug} test report: every unit row, and every compliance number equals figures --json`, async () => {
+      const { page, report } = await open(`parts/${slug}/report.html`);
+      for (const id of ['part-number', 'compliance-title', 'measurements-title', 'quality-title']) {
+        expect(await page.$(`#${id}`), `${slug}: section #${id}`).not.toBeNull();
+      }
       // the compliance numbers against the CLI's JSON for the same part
-      const cli = spawnSync(process.execPath, [BIN, 'figures', join(ROOT, 'content/parts', slug, 'part.yaml'), '--json'], { encoding: 'utf8' });
-      const json = JSON.parse(cli.stdout) as { results: Array<{ typical: number; worst: number; worstAtHz: number | null; margin: number | null; pass: boolean | null; units: Array<{ unit: string; worst: number; atHz: number | null; margin: number | null; pass: boolean | null }> }> };
+      const json = figuresJson(slug);
       const table = await page.$$eval('tbody.check', (bodies) =>
         bodies.map((b) => {
           const num = (row: Element, key: string) => {
