@@ -164,7 +164,7 @@ async function buildAndPublish(o: BuildOptions, t: Terminal, started: number): P
   const failed = catalog.failures.length;
   let failing = 0;
   for (const page of catalog.parts) {
-    for (const w of page.warnings) t.stderr.write(`${w}\n`);
+    for (const w of page.warnings) t.stderr.write(`${printable(w.where)}: ${p.yellow('warning:')} ${printable(w.message)}\n`);
     const rows = page.compliance.filter((r) => r.verdict === 'FAIL');
     if (rows.length) failing++;
     for (const r of rows) {

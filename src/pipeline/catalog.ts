@@ -64,6 +64,13 @@ export interface MeasurementRow {
   readonly reference: string;
   readonly touchstone: string;
   readonly notes: string;
+  /** Measurement metadata from the part file ('' where not given). */
+  readonly instrument: string;
+  readonly calibration: string;
+  readonly measuredOn: string;
+  readonly operator: string;
+  /** The file's own comment and [Begin Information] lines (the first 12). */
+  readonly fileLines: readonly string[];
 }
 
 export interface QualityRow {
@@ -118,8 +125,8 @@ export interface PartPage {
   readonly quality: readonly QualityRow[];
   readonly ratings: ReadonlyArray<{ readonly parameter: string; readonly value: string; readonly notes: string }>;
   readonly cautions: readonly string[];
-  /** Warnings of the evaluation, formatted (FILE:LINE:COL: warning: …), for the page and the terminal. */
-  readonly warnings: readonly string[];
+  /** Warnings of the evaluation: where (FILE:LINE:COL, for the report and the terminal) and what. */
+  readonly warnings: ReadonlyArray<{ readonly where: string; readonly message: string }>;
   /** The JSON of `scatterbook figures --json`, for machine readers and tests. */
   readonly figuresJson: string;
 }
@@ -132,6 +139,8 @@ export interface PartFailure {
 
 export interface Catalog {
   readonly site: SiteSettings;
+  /** The scatterbook version that built it. */
+  readonly version: string;
   readonly parts: readonly PartPage[];
   /** The parts whose test report is built (all, or none when site.yaml sets reports: false). */
   readonly reportParts: readonly PartPage[];
@@ -209,6 +218,11 @@ function measurement(u: LoadedUnit, m: NormalizedPart['measurements'][number] | 
     reference: uniform ? `${trimNumber(net.z0[0])} Ω` : Array.from(net.z0, (r, i) => `${i + 1}: ${trimNumber(r)} Ω`).join(', '),
     touchstone: `${u.data.info.version}, ${u.data.info.parameter} ${u.data.info.format}`,
     notes: m?.notes ?? '',
+    instrument: m?.instrument ?? '',
+    calibration: m?.calibration ?? '',
+    measuredOn: m?.date ?? '',
+    operator: m?.operator ?? '',
+    fileLines: [...u.data.info.comments, ...u.data.info.information].map((l) => l.trim()).filter(Boolean).slice(0, 12),
   };
 }
 
@@ -300,7 +314,7 @@ export async function buildPartPage(partFile: string, contentRoot: string, slug:
     quality: outcome.units.map((u) => quality(part, u)),
     ratings: part.ratings.map((r) => ({ parameter: r.parameter, value: r.value, notes: r.notes ?? '' })),
     cautions: cautionsFor(part.partClass, part.cautions),
-    warnings: result.warnings.map((w) => formatSpecError(w, undefined, 'warning')),
+    warnings: result.warnings.map((w) => ({ where: `${w.file}:${w.line}:${w.column}`, message: w.message })),
     // safe inside <script type="application/json">: no "<" can close the element
     figuresJson: JSON.stringify(figuresJson(result)).replace(/</g, '\\u003c'),
   };
@@ -370,6 +384,7 @@ export function assembleCatalog(site: SiteSettings, parts: readonly PartPage[], 
     reportParts: site.reports ? parts : [],
     byClass: order.map((c) => ({ partClass: c, title: classOf(c).title, parts: parts.filter((p) => p.partClass === c) })),
     failures,
+    version,
     generator: `scatterbook ${version}`,
   };
 }

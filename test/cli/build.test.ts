@@ -149,6 +149,36 @@ describe('scatterbook build', () => {
     expect(build()).not.toContain('from the cache');
   });
 
+  it('two documents per part; declared specifications marked; measurement metadata on the report; site.yaml can keep reports and data files out', () => {
+    const c = content('docs');
+    const yaml = join(c, 'parts/vt-att-10/part.yaml');
+    writeFileSync(
+      yaml,
+      readFileSync(yaml, 'utf8')
+        .replace('  - {unit: SN2001, file: data/sn2001.s2p, conditions: {temperature: 25 °C}}', '  - {unit: SN2001, file: data/sn2001.s2p, conditions: {temperature: 25 °C}, instrument: 4-port analyser, calibration: SOLT 2026-09-30, date: 2026-10-01, operator: Q. Tester}')
+        .replace('ratings:', 'features: [Flat attenuation, Stainless-steel body]\ndeclared:\n  - {parameter: Power handling, max: 2, unit: W, conditions: "CW, 25 °C"}\nordering:\n  - {code: VT-ATT-10-SMA, description: SMA male to SMA female}\nratings:'),
+    );
+    expect(run(['build', 'docs', '--out', 'site-docs', '--no-cache', '--no-pdf']).status).toBe(0);
+    const sheet = readFileSync(join(dir, 'site-docs/parts/vt-att-10/index.html'), 'utf8');
+    expect(sheet).toContain('<li>Flat attenuation</li>');
+    expect(sheet).toMatch(/<tr class="spec-row declared">\s*<th scope="row">Power handling<sup class="mark">\*<\/sup>/);
+    expect(sheet).toContain('Values marked * are declared by the vendor');
+    expect(sheet).toContain('VT-ATT-10-SMA');
+    expect(sheet).toContain('href="../../parts/vt-att-10/data/sn2001.s2p"');
+    expect(sheet).not.toContain('id="compliance-title"');
+    expect(readFileSync(join(dir, 'site-docs/parts/vt-att-10/data/sn2001.s2p'), 'utf8')).toBe(readFileSync(join(c, 'parts/vt-att-10/data/sn2001.s2p'), 'utf8'));
+    const report = readFileSync(join(dir, 'site-docs/parts/vt-att-10/report.html'), 'utf8');
+    expect(report).toContain('id="compliance-title"');
+    expect(report).toContain('SOLT 2026-09-30');
+    expect(report).toContain('Q. Tester');
+    expect((report.match(/<tr class="unit" data-unit="SN2003">/g) ?? []).length).toBe(4); // every limit has the unit's row
+    writeFileSync(join(c, 'site.yaml'), 'vendor: Test\nreports: false\npublish-data: false\n');
+    expect(run(['build', 'docs', '--out', 'site-docs', '--no-cache', '--no-pdf']).status).toBe(0);
+    expect(existsSync(join(dir, 'site-docs/parts/vt-att-10/report.html'))).toBe(false);
+    expect(existsSync(join(dir, 'site-docs/parts/vt-att-10/data'))).toBe(false);
+    expect(readFileSync(join(dir, 'site-docs/parts/vt-att-10/index.html'), 'utf8')).not.toContain('Test report');
+  });
+
   it('a published part that fails a limit: a warning per failing limit on stderr; --strict exits 3 (the site is still written)', () => {
     content('gate');
     const r = run(['build', 'gate', '--out', 'site-gate', '--no-cache', '--no-pdf']);
