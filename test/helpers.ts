@@ -56,6 +56,7 @@ import { makeCompiler } from '../src/figures/expression.js';
 import { loadPartText } from '../src/spec/load.js';
 import type { SpecError } from '../src/spec/diagnostics.js';
 import { create, all } from 'mathjs';
+import type { NoiseParameters } from '../src/touchstone/normalize.js';
 
 const compile = makeCompiler(create(all));
 
@@ -63,17 +64,17 @@ const compile = makeCompiler(create(all));
  * Loads part YAML from a string and evaluates it against networks given by
  * unit name (no files): the figure engine end to end without the shell.
  */
-export function evaluateYaml(yaml: string, networks: Record<string, Network>): { result: PartResult | null; errors: readonly SpecError[] } {
+export function evaluateYaml(yaml: string, networks: Record<string, Network>, noise: Record<string, NoiseParameters | null> = {}): { result: PartResult | null; errors: readonly SpecError[] } {
   const loaded = loadPartText(yaml, 'part.yaml', compile);
   if (!loaded.value) return { result: null, errors: loaded.errors };
-  const units = loaded.value.measurements.map((m) => ({ unit: m.label, file: m.file, network: networks[m.unit], conditions: m.conditions, fileAt: m.fileAt }));
+  const units = loaded.value.measurements.map((m) => ({ unit: m.label, file: m.file, network: networks[m.unit], noise: noise[m.unit] ?? null, conditions: m.conditions, fileAt: m.fileAt }));
   const r = evaluatePart(loaded.value, units);
   return { result: r.value, errors: r.errors };
 }
 
 /** Like evaluateYaml, but fails the test on errors. */
-export function resultsOf(yaml: string, networks: Record<string, Network>): PartResult {
-  const r = evaluateYaml(yaml, networks);
+export function resultsOf(yaml: string, networks: Record<string, Network>, noise: Record<string, NoiseParameters | null> = {}): PartResult {
+  const r = evaluateYaml(yaml, networks, noise);
   if (!r.result) throw new Error(`unexpected errors: ${JSON.stringify(r.errors, null, 1)}`);
   return r.result;
 }

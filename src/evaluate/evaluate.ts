@@ -16,6 +16,7 @@
 import { FigureUndefined, type FigureContext, type Item } from '../figures/types.js';
 import { formatFrequency } from '../format/units.js';
 import type { Network } from '../network/network.js';
+import type { NoiseParameters } from '../touchstone/normalize.js';
 import type { Position, SpecError, SpecWarning } from '../spec/diagnostics.js';
 import { classOf } from '../classes/registry.js';
 import type { Limit, NormalizedCheck, NormalizedPart } from '../spec/normalize.js';
@@ -30,6 +31,8 @@ export interface UnitData {
   readonly serial?: string;
   readonly file: string;
   readonly network: Network;
+  /** The file's noise parameters (two-ports), or none. */
+  readonly noise?: NoiseParameters | null;
   /** The file's Touchstone 2 [Mixed-Mode Order] descriptors, when it was written in mixed-mode order. */
   readonly mixedModeOrder?: readonly string[] | null;
   readonly conditions: Readonly<Record<string, string>>;
@@ -217,11 +220,13 @@ function evaluateCheck(part: NormalizedPart, check: NormalizedCheck, all: readon
   const score = scorer(check);
   const band = check.band;
   const unitResults: UnitResult[] = [];
+  const onNoise = check.figure.grid === 'noise';
   for (const u of units) {
-    const f = u.network.freqHz;
+    if (onNoise && !u.noise) problem('figure-undefined', `${check.figure.id} needs noise parameters, and ${u.file} (unit ${u.unit}) has none (a Touchstone noise block follows the network data of a 2-port)`);
+    const f = onNoise ? (u.noise as NoiseParameters).freqHz : u.network.freqHz;
     const lo = f[0], hi = f[f.length - 1];
     if (band.fromHz < lo || band.toHz > hi) {
-      problem('band-outside-data', `band ${band.name} (${formatFrequency(band.fromHz)} to ${formatFrequency(band.toHz)}) reaches outside the measured range of ${u.file} (${formatFrequency(lo)} to ${formatFrequency(hi)})`, band.at);
+      problem('band-outside-data', `band ${band.name} (${formatFrequency(band.fromHz)} to ${formatFrequency(band.toHz)}) reaches outside the ${onNoise ? 'noise frequencies' : 'measured range'} of ${u.file} (${formatFrequency(lo)} to ${formatFrequency(hi)})`, band.at);
     }
     const ctx: FigureContext = {
       network: u.network,
@@ -230,6 +235,7 @@ function evaluateCheck(part: NormalizedPart, check: NormalizedCheck, all: readon
       levelDb: check.levelDb,
       nominal: check.nominal,
       band: { fromHz: band.fromHz, toHz: band.toHz },
+      noise: u.noise ?? null,
     };
     let best: { value: number; atHz: number | null; score: number; on: string } | null = null;
     let lowest: { value: number; atHz: number | null; on: string; stepHz: number | null } | null = null;
@@ -345,7 +351,8 @@ function evaluateItem(
     if (e instanceof FigureUndefined) problem('figure-undefined', `${where}: ${e.message}`);
     problem('bad-expression', `${where}: ${(e as Error).message}`);
   }
-  const set = bandSet(ctx.network.freqHz, values, ctx.band.fromHz, ctx.band.toHz);
+  const grid = fig.grid === 'noise' && ctx.noise ? ctx.noise.freqHz : ctx.network.freqHz;
+  const set = bandSet(grid, values, ctx.band.fromHz, ctx.band.toHz);
   for (let k = 0; k < set.values.length; k++) {
     if (Number.isNaN(set.values[k])) {
       problem('figure-undefined', `${where} has no value at ${formatFrequency(set.freqHz[k])}${fig.undefinedWhere ? `: it is not defined where ${fig.undefinedWhere}` : ''}`);
@@ -353,7 +360,7 @@ function evaluateItem(
   }
   let lowK = 0;
   for (let k = 1; k < set.values.length; k++) if (set.values[k] < set.values[lowK]) lowK = k;
-  const lowest = { value: set.values[lowK], atHz: set.freqHz[lowK], stepHz: gridStep(ctx.network.freqHz, set.freqHz[lowK]) };
+  const lowest = { value: set.values[lowK], atHz: set.freqHz[lowK], stepHz: gridStep(grid, set.freqHz[lowK]) };
   if (fig.shape === 'span') {
     let max = -Infinity;
     for (const v of set.values) if (v > max) max = v;

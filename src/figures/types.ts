@@ -4,6 +4,7 @@
  */
 import type { Network } from '../network/network.js';
 import type { SParameter } from '../spec/parameter.js';
+import type { NoiseParameters } from '../touchstone/normalize.js';
 
 /** Units of figure values: dB, degrees, seconds, hertz, or none. */
 export type FigureUnit = 'dB' | 'deg' | 's' | 'Hz' | '';
@@ -51,6 +52,8 @@ export interface FigureContext {
   /** The nominal of the limit (or the figure's default), where it has one. */
   readonly nominal: number | null;
   readonly band: { readonly fromHz: number; readonly toHz: number };
+  /** The unit's noise parameters, for the noise figures (null when its file has none). */
+  readonly noise?: NoiseParameters | null;
 }
 
 export interface FigureDef {
@@ -60,6 +63,10 @@ export interface FigureDef {
   readonly operands: Operands;
   readonly shape: Shape;
   readonly worse: Worse;
+  /** Where perPoint's values sit: the network's frequencies (default), or the noise parameters' (noise figures). */
+  readonly grid?: 'network' | 'noise';
+  /** The parameters a limit covers when it gives no `on` (the noise figures: S21, the two-port's path). */
+  readonly defaultOn?: readonly string[];
   /** One-line definition, shown in documentation and on pages. */
   readonly definition: string;
   /** The nominal a tolerance is taken around when the limit gives none. */

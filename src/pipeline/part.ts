@@ -97,7 +97,7 @@ export async function evaluatePartFile(partFile: string, contentRoot: string, di
       for (const e of r.errors) errors.push({ code: 'touchstone', file: fileLabel, line: e.line, column: e.column ?? (e.line ? 1 : 0), message: e.message });
       continue;
     }
-    units.push({ unit: m.label, serial: m.unit, file: m.file, network: r.value.network, mixedModeOrder: r.value.info.mixedModeOrder, conditions: m.conditions, fileAt: m.fileAt, data: r.value, path, bytes: r.bytes, sha256: r.sha256 });
+    units.push({ unit: m.label, serial: m.unit, file: m.file, network: r.value.network, noise: r.value.noise, mixedModeOrder: r.value.info.mixedModeOrder, conditions: m.conditions, fileAt: m.fileAt, data: r.value, path, bytes: r.bytes, sha256: r.sha256 });
   }
   if (errors.length) return { source, part, units, result: null, errors };
   const t1 = performance.now();

@@ -178,7 +178,11 @@ export function buildPlots(part: NormalizedPart, units: readonly UnitData[]): Pl
     const matching = part.checks.filter((c) => limitsFrom.includes(c.figure.id));
     // files in mixed-mode order hold modes: only mixed-mode items can be drawn from them, never single-ended names
     const items = itemsFor(def, fig, matching, ports).filter((i) => !units[0].mixedModeOrder || i.params.every((p) => p.mode !== undefined));
-    const range = rangeFor(def, part, matching, lo, hi);
+    // noise figures sit on the noise frequencies
+    const noisy = fig.grid === 'noise' ? units.filter((u) => u.noise) : [];
+    if (fig.grid === 'noise' && !noisy.length) return;
+    const [glo, ghi] = fig.grid === 'noise' ? [largest(noisy.map((u) => (u.noise as NonNullable<UnitData['noise']>).freqHz[0])), smallest(noisy.map((u) => { const f = (u.noise as NonNullable<UnitData['noise']>).freqHz; return f[f.length - 1]; }))] : [lo, hi];
+    const range = rangeFor(def, part, matching, glo, ghi);
     if (!items.length || !range || !(range[1] > range[0])) return;
     const model = buildOne(part, units, def, fig, items, matching, range, index);
     if (model) out.push(model);
@@ -205,14 +209,14 @@ function buildOne(part: NormalizedPart, units: readonly UnitData[], def: PlotDef
   const nominal = matching.find((c) => c.figure.id === fig.id && c.nominal !== null)?.nominal ?? null;
   const groups = conditionGroups(units);
   // a series: one parameter over the units of one condition group (colour by condition where there are several, dash by parameter)
-  const series = groups.flatMap((g, gi) =>
+  const series = groups.filter((g) => fig.grid !== 'noise' || g.units.some((u) => u.noise)).flatMap((g, gi) =>
     items.map((item, ii) => ({
       label: g.label ? `${item.label} at ${g.label}` : item.label,
       item,
       group: g,
       color: PALETTE[(groups.length > 1 ? gi : ii) % PALETTE.length],
       dash: DASHES[ii % DASHES.length],
-      data: g.units.map((u) => {
+      data: g.units.filter((u) => fig.grid !== 'noise' || u.noise).map((u) => {
         const ctx: FigureContext = {
           network: u.network,
           part: { partClass: part.partClass, ways: part.ways, phaseSplitDeg: part.phaseSplitDeg },
@@ -222,7 +226,8 @@ function buildOne(part: NormalizedPart, units: readonly UnitData[], def: PlotDef
           band: { fromHz: x0, toHz: x1 },
         };
         const on = itemOnNetwork(u.network, part.mixedModePairs, item, u.mixedModeOrder);
-        return { unit: u.unit, freq: u.network.freqHz, values: (fig.perPoint as NonNullable<FigureDef['perPoint']>)({ ...ctx, network: on.network }, on.item) };
+        const freq = fig.grid === 'noise' && u.noise ? u.noise.freqHz : u.network.freqHz;
+        return { unit: u.unit, freq, values: (fig.perPoint as NonNullable<FigureDef['perPoint']>)({ ...ctx, network: on.network, noise: u.noise ?? null }, on.item) };
       }),
     })),
   );
@@ -238,6 +243,7 @@ function buildOne(part: NormalizedPart, units: readonly UnitData[], def: PlotDef
       for (const [f, v] of thin(d.freq, d.values, x0, x1)) traces.push({ x: f / fu.scale, y: v * disp.scale, item: se.label, trace: `${d.unit} ${se.item.label}` });
     }
     const ref = se.data[0];
+    if (!ref) continue;
     const mf: number[] = [], mv: number[] = [], lo: number[] = [], hi: number[] = [];
     ref.freq.forEach((f) => {
       if (f < x0 || f > x1) return;

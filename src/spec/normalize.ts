@@ -265,7 +265,7 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
     }
 
     // operands
-    const onList = Array.isArray(e.on) ? (e.on.filter((x) => typeof x === 'string') as string[]) : null;
+    const onList = Array.isArray(e.on) ? (e.on.filter((x) => typeof x === 'string') as string[]) : figure.defaultOn ? [...figure.defaultOn] : null;
     const params: SParameter[] = [];
     if (onList) {
       onList.forEach((name, j) => {

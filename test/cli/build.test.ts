@@ -92,7 +92,7 @@ describe('scatterbook build', () => {
     expect(run(['build', 'custom', '--out', 'site-c', '--no-cache', '--no-pdf']).status).toBe(0);
     const page = readFileSync(join(dir, 'site-c/parts/vt-att-10/index.html'), 'utf8');
     expect(page).toContain('<p class="vendor-ports">2 connections</p>');
-    expect(page).toContain('id="compliance-title"'); // the other templates are still ours
+    expect(page).toContain('id="headline-title"'); // the other templates are still ours
   });
 
   it('unchanged parts come from the cache; a changed measurement file or part file is recomputed', () => {
@@ -107,7 +107,7 @@ describe('scatterbook build', () => {
     writeFileSync(yaml, readFileSync(yaml, 'utf8').replace('max: 5.2 dB', 'max: 5.3 dB'));
     const r = run(args);
     expect(r.stdout).toContain('(1 unchanged, from the cache)');
-    expect(readFileSync(join(dir, 'site-cache/parts/vt-cbl-150/index.html'), 'utf8')).toContain('≤ 5.30\u00a0dB');
+    expect(readFileSync(join(dir, 'site-cache/parts/vt-cbl-150/report.html'), 'utf8')).toContain('≤ 5.30\u00a0dB');
   });
 
   it('the cache never serves a stale page: an edit in place with the same size and time, site settings, template overrides', () => {
@@ -126,7 +126,7 @@ describe('scatterbook build', () => {
     expect(statSync(data).size).toBe(before.size);
     expect(statSync(data).mtimeMs).toBe(before.mtimeMs);
     expect(run(args).stdout).toContain('(1 unchanged, from the cache)');
-    const page = readFileSync(join(dir, 'site-stale/parts/vt-att-10/index.html'), 'utf8');
+    const page = readFileSync(join(dir, 'site-stale/parts/vt-att-10/report.html'), 'utf8');
     expect(page).toContain(createHash('sha256').update(readFileSync(data)).digest('hex'));
     writeFileSync(join(c, 'site.yaml'), 'vendor: Another Name\n');
     expect(run(args).stdout).not.toContain('from the cache');
