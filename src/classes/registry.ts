@@ -12,7 +12,7 @@
  */
 
 export interface PlotDef {
-  /** The trace-shaped figure whose per-point values are drawn. */
+  /** The trace-shaped figure whose per-point values are drawn, or 'smith' for a Smith chart of reflection parameters. */
   readonly figure: string;
   /** Figures whose limits are drawn as forbidden regions (default: the figure itself). */
   readonly limitsFrom?: readonly string[];
@@ -106,6 +106,7 @@ const RECORDS = [
       { figure: 'stability-k', range: 'all', ports: [1, 2] },
       { figure: 'stability-mu', range: 'all', ports: [1, 2] },
       { figure: 'noise-figure', on: ['S21'], range: 'all' },
+      { figure: 'smith', on: ['S11', 'S22'], range: 'all', title: 'Input and output match (Smith chart)' },
     ],
     headline: ['gain', 'gain-flatness', 'noise-figure', 'minimum-noise-figure', 'return-loss', 'isolation', 'stability-k', 'stability-mu'],
     transmission: ['gain'],

@@ -43,6 +43,8 @@ export interface ComplianceRow {
 
 export interface PlotBlock {
   readonly id: string;
+  /** 'smith' for a Smith chart, else a figure over frequency. */
+  readonly kind: 'figure' | 'smith';
   readonly title: string;
   readonly svg: string;
   readonly legend: ReadonlyArray<{ readonly label: string; readonly color: string; readonly dash: string }>;
@@ -257,6 +259,7 @@ export async function buildPartPage(partFile: string, contentRoot: string, slug:
   const svgs = await Promise.all(models.map((m) => renderPlotAnywhere(m, `${slug}-`)));
   const plots: PlotBlock[] = models.map((m, i) => ({
     id: m.id,
+    kind: m.kind ?? 'figure',
     title: m.title,
     svg: svgs[i],
     legend: m.items.map((label, j) => ({ label, color: m.colors[j], dash: m.dashes[j].join(' ') })),

@@ -6,6 +6,10 @@
  */
 import type { UnitData } from '../evaluate/evaluate.js';
 import { DASHES, LIMIT_FILL, PALETTE } from './spec.js';
+import { buildSmith } from './smith.js';
+
+/** The plot name of a Smith chart in `plots` and `extra-plots` (it is a plot, not a figure). */
+export const SMITH = 'smith';
 import { FIGURES } from '../figures/registry.js';
 import type { FigureContext, FigureDef, Item } from '../figures/types.js';
 import { frequencyUnitFor } from '../format/units.js';
@@ -46,6 +50,8 @@ export interface TracePoint {
   readonly item: string;
   /** Unit label + parameter: one line each. */
   readonly trace: string;
+  /** The point's index in frequency order, where the line is not drawn in x order (the Smith chart). */
+  readonly k?: number;
 }
 
 export interface BandPoint {
@@ -57,6 +63,8 @@ export interface BandPoint {
 
 export interface PlotModel {
   readonly id: string;
+  /** A Smith chart of reflection parameters, drawn on the Γ plane (smith.ts), rather than a figure over frequency. */
+  readonly kind?: 'smith';
   readonly title: string;
   /** A sentence for screen readers: what is drawn, over what, against which limits. */
   readonly description: string;
@@ -172,6 +180,11 @@ export function buildPlots(part: NormalizedPart, units: readonly UnitData[]): Pl
   const hi = smallest(units.map((u) => u.network.freqHz[u.network.freqHz.length - 1]));
   const out: PlotModel[] = [];
   plotDefs(part).forEach((def, index) => {
+    if (def.figure === SMITH) {
+      const smith = buildSmith(part, units, def, index);
+      if (smith) out.push(smith);
+      return;
+    }
     const fig = figureFor(part, def.figure);
     if (!fig || fig.shape !== 'trace' || !fig.perPoint) return;
     const limitsFrom = def.limitsFrom ?? [def.figure];

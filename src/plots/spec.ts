@@ -6,6 +6,7 @@
  * forbidden regions are a translucent brick red with a solid edge.
  */
 import type { PlotModel } from './model.js';
+import { smithGrid, smithSpecOf } from './smith-spec.js';
 
 export const PALETTE = ['#1f4e8c', '#b5651d', '#2e7d5b', '#6d4a99'] as const;
 export const DASHES: ReadonlyArray<readonly number[]> = [[1, 0], [7, 3], [2, 2], [9, 3, 2, 3]];
@@ -35,9 +36,10 @@ export interface PlotShape {
   readonly several: boolean;
   /** Limits drawn per series (in the series' style) as well as, or instead of, shaded regions. */
   readonly seriesEdges: boolean;
+  readonly smith: boolean;
 }
 
-export const shapeOf = (m: PlotModel): PlotShape => ({ downward: m.downward, itemCount: m.items.length, several: m.measurementCount > 1, seriesEdges: m.seriesEdges.length > 0 });
+export const shapeOf = (m: PlotModel): PlotShape => ({ downward: m.downward, itemCount: m.items.length, several: m.measurementCount > 1, seriesEdges: m.seriesEdges.length > 0, smith: m.kind === 'smith' });
 export const textsOf = (m: PlotModel): PlotTexts => ({ title: m.title, xTitle: m.xTitle, yTitle: m.yTitle, xDomain: m.xDomain, yDomain: m.yDomain, items: m.items, colors: m.colors, dashes: m.dashes });
 
 /** The Vega-Lite spec of a plot. */
@@ -46,6 +48,7 @@ export function plotSpec(m: PlotModel): Record<string, unknown> {
 }
 
 export function specOf(shape: PlotShape, t: PlotTexts): Record<string, unknown> {
+  if (shape.smith) return smithSpecOf(shape, t);
   const m = { ...t, downward: shape.downward, unitCount: shape.several ? 2 : 1 };
   const x = { field: 'x', type: 'quantitative', title: m.xTitle, scale: { domain: [...m.xDomain], nice: false, zero: false } };
   const y = { field: 'y', type: 'quantitative', title: m.yTitle, scale: { domain: [...m.yDomain], nice: false, zero: false, reverse: m.downward } };
@@ -115,6 +118,7 @@ export function specOf(shape: PlotShape, t: PlotTexts): Record<string, unknown> 
 /** The named datasets the spec reads (a plot of one unit has no spread and no per-unit traces beside its median). */
 export function plotData(m: PlotModel): Record<string, readonly object[]> {
   const shape = shapeOf(m);
+  if (shape.smith) return { grid: smithGrid(), traces: m.traces };
   const own = { regions: m.regions, median: m.median, edges: m.edges, ...(shape.seriesEdges ? { seriesEdges: m.seriesEdges } : {}) };
   return shape.several ? { ...own, envelope: m.envelope, traces: m.traces } : own;
 }

@@ -121,6 +121,33 @@ describe('limits on the traces they apply to', () => {
   });
 });
 
+describe('the Smith chart', () => {
+  it('draws each unit\'s Γ inside the unit circle, its points the data themselves, and its SVG path where the axes put them', async () => {
+    const o = await evaluatePartFile(join(ROOT, 'content/parts/vt-amp-0560/part.yaml'), join(ROOT, 'content'));
+    const smith = buildPlots(o.part!, o.units).find((p) => p.kind === 'smith')!;
+    expect(smith.items).toEqual(['S11', 'S22']);
+    expect(smith.traces.length).toBeGreaterThan(0);
+    for (const t of smith.traces) expect(Math.hypot(t.x, t.y)).toBeLessThan(1); // |S11|, |S22| < 1 for this matched amplifier
+    // a few points against the files' own numbers: S11 of the first unit at its first, middle and last frequency
+    const u = o.units[0];
+    const n = u.network.freqHz.length;
+    for (const k of [0, Math.floor(n / 2) - (Math.floor(n / 2) % Math.ceil(n / 400)), n - 1]) {
+      const p = smith.traces.find((t) => t.trace === `${u.unit} S11` && t.k === k)!;
+      expect(p, `point ${k}`).toBeDefined();
+      expect(p.x).toBe(u.network.s[2 * (k * 4)]);
+      expect(p.y).toBe(u.network.s[2 * (k * 4) + 1]);
+    }
+    // in the SVG, the first point of the first trace sits where the axes map it (300 px for −1.05 … 1.05)
+    const svg = await renderPlot(smith, 's-');
+    const path = /class="mark-line role-mark smith_traces_marks"[^>]*>\s*<path[^>]*d="M([\d.-]+),([\d.-]+)/.exec(svg);
+    expect(path, 'a trace path').not.toBeNull();
+    const first = smith.traces[0];
+    const [px, py] = [Number(path![1]), Number(path![2])];
+    expect(Math.abs(((first.x + 1.05) / 2.1) * 300 - px)).toBeLessThan(0.5);
+    expect(Math.abs(((1.05 - first.y) / 2.1) * 300 - py)).toBeLessThan(0.5);
+  });
+});
+
 describe('the Vega-Lite spec of a demo plot (golden)', () => {
   it('VT-BPF-2450, first plot', async () => {
     const o = await evaluatePartFile(join(ROOT, 'content/parts/vt-bpf-2450/part.yaml'), join(ROOT, 'content'));

@@ -89,7 +89,7 @@ describe.skipIf(!haveBrowser)('the demo site in Chromium', () => {
           title: s.querySelector('title')?.textContent ?? '',
           desc: s.querySelector('desc')?.textContent ?? '',
           role: s.getAttribute('role'),
-          median: s.querySelectorAll('.median_traces_marks path').length,
+          median: s.querySelectorAll('.median_traces_marks path, .smith_traces_marks path').length,
           regions: s.querySelectorAll('.limit_regions_marks path').length + s.querySelectorAll('.series_limit_edges_marks line, .series_limit_edges_marks path').length,
         })),
       );
