@@ -6,7 +6,7 @@ import { dirname, resolve } from 'node:path';
 import type { CheckResult, PartResult } from '../evaluate/evaluate.js';
 import { figuresJson } from '../evaluate/json.js';
 import { printable } from '../format/escape.js';
-import { formatFrequency } from '../format/units.js';
+import { formatFrequency, gridResolutionHz } from '../format/units.js';
 import { formatLimit, formatValue } from '../format/values.js';
 import { evaluatePartFile } from '../pipeline/part.js';
 import { formatSpecError } from '../spec/diagnostics.js';
@@ -30,17 +30,17 @@ function pad(s: string, width: number): string {
   return s + ' '.repeat(Math.max(0, width - visible));
 }
 
-export function figuresTable(r: PartResult, p: Painter): string {
+export function figuresTable(r: PartResult, p: Painter, resolutionHz: number | null = null): string {
   const head = ['figure', 'on', 'band', 'limit', 'typical', 'worst', 'at', 'margin', ''];
   const rows = r.results.map((c) => [
     printable(c.label),
     printable(c.on.join(' ')),
     printable(c.band),
     formatLimit(c.limit, c.unit),
-    formatValue(c.typical, c.unit),
-    `${formatValue(c.worst, c.unit)} (${printable(c.worstUnit)})`,
+    formatValue(c.typical, c.unit, resolutionHz),
+    `${formatValue(c.worst, c.unit, resolutionHz)} (${printable(c.worstUnit)})`,
     c.worstAtHz === null ? '—' : formatFrequency(c.worstAtHz),
-    c.margin === null ? '—' : formatValue(c.margin, c.unit),
+    c.margin === null ? '—' : formatValue(c.margin, c.unit, resolutionHz),
     verdict(c, p),
   ]);
   const widths = head.map((h, i) => Math.max(h.length, ...rows.map((row) => row[i].replace(/\x1b\[[0-9;]*m/g, '').length)));
@@ -65,7 +65,8 @@ export const figuresCommand: Command = {
     }
     const r = outcome.result;
     for (const w of r.warnings) t.stderr.write(`${formatSpecError(w, w.file === file ? outcome.source : undefined, 'warning')}\n`);
-    t.stdout.write(args.flags.has('json') ? `${JSON.stringify(figuresJson(r), null, 2)}\n` : figuresTable(r, painter(t.stdout, t.env)));
+    const res = outcome.units.map((u) => gridResolutionHz(u.network.freqHz) ?? 0).reduce((a, b) => Math.max(a, b), 0) || null;
+    t.stdout.write(args.flags.has('json') ? `${JSON.stringify(figuresJson(r), null, 2)}\n` : figuresTable(r, painter(t.stdout, t.env), res));
     return !r.pass && args.flags.has('strict') ? EXIT.limitFailed : EXIT.ok;
   },
 };

@@ -20,6 +20,27 @@ export function formatFrequency(hz: number, digits = 6): string {
   return `${trimNumber(hz / scale, digits)} ${unit}`;
 }
 
+/**
+ * The display resolution a measured grid supports: the decade below its step
+ * (a 5 MHz grid → 1 MHz, a 10 MHz grid → 10 MHz, a 250 kHz grid → 100 kHz).
+ * Frequency figures are shown to it, so that no interpolated band edge claims
+ * more digits than the measurement has; their exact values stay in the JSON.
+ */
+export function gridResolutionHz(freqHz: ArrayLike<number>): number | null {
+  if (freqHz.length < 2) return null;
+  const steps: number[] = [];
+  for (let k = 1; k < freqHz.length; k++) steps.push(freqHz[k] - freqHz[k - 1]);
+  steps.sort((a, b) => a - b);
+  const median = steps[steps.length >> 1];
+  return median > 0 ? Math.pow(10, Math.floor(Math.log10(median) + 1e-9)) : null;
+}
+
+/** A frequency rounded to a resolution: "136 MHz" for 135.8415 MHz on a 1 MHz resolution. */
+export function formatFrequencyTo(hz: number, resolutionHz: number | null): string {
+  if (!Number.isFinite(hz) || !resolutionHz) return formatFrequency(hz, 7);
+  return formatFrequency(Math.round(hz / resolutionHz) * resolutionHz, 12);
+}
+
 /** A number to `digits` significant digits without trailing zeros or exponent for ordinary sizes. */
 export function trimNumber(v: number, digits = 6): string {
   if (!Number.isFinite(v)) return v > 0 ? '∞' : v < 0 ? '−∞' : 'n/a';

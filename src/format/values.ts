@@ -1,10 +1,15 @@
 /** Figure values and limits as people read them in tables. */
 
 import type { Limit } from '../spec/normalize.js';
-import { fixed, formatFrequency } from './units.js';
+import { fixed, formatFrequencyTo } from './units.js';
 
-/** A value in its figure's unit: "1.31 dB", "4.78 ns", "2.45 GHz", "1.222". */
-export function formatValue(v: number | null, unit: string): string {
+/**
+ * A value in its figure's unit, by one precision policy: dB and degrees to
+ * 0.01, unitless values (VSWR, K, μ) to 0.001, times to 0.001 ns (0.01 ps
+ * below 1 ns), frequencies to the resolution of the measured grid when it is
+ * given (gridResolutionHz), else 7 significant digits.
+ */
+export function formatValue(v: number | null, unit: string, resolutionHz: number | null = null): string {
   if (v === null) return '—';
   if (!Number.isFinite(v)) return v > 0 ? '∞' : v < 0 ? '−∞' : 'n/a';
   switch (unit) {
@@ -15,7 +20,7 @@ export function formatValue(v: number | null, unit: string): string {
     case 's':
       return formatTime(v);
     case 'Hz':
-      return formatFrequency(v, 7);
+      return formatFrequencyTo(v, resolutionHz);
     default:
       return fixed(v, 3);
   }
@@ -51,9 +56,13 @@ export function displayUnit(values: ReadonlyArray<number | null>, unit: string):
 }
 
 /** A number in a display unit, without the unit: "1.31", "4.780". */
-export function formatNumber(v: number | null, unit: string, d: { scale: number }): string {
+export function formatNumber(v: number | null, unit: string, d: { scale: number }, resolutionHz: number | null = null): string {
   if (v === null) return '';
   if (!Number.isFinite(v)) return v > 0 ? '∞' : '−∞';
+  if (unit === 'Hz' && resolutionHz) {
+    const step = resolutionHz * d.scale;
+    return fixed(Math.round((v * d.scale) / step) * step, Math.max(0, Math.round(-Math.log10(step))));
+  }
   const decimals = unit === 'dB' || unit === 'deg' || (unit === 's' && d.scale === 1e12) ? 2 : 3;
   return fixed(v * d.scale, decimals);
 }

@@ -8,7 +8,7 @@ import { basename, join, relative, sep } from 'node:path';
 import type { CheckResult } from '../evaluate/evaluate.js';
 import { figuresJson } from '../evaluate/json.js';
 import { largest, smallest } from '../evaluate/stats.js';
-import { bandRange, formatFrequency, trimNumber } from '../format/units.js';
+import { bandRange, formatFrequency, gridResolutionHz, trimNumber } from '../format/units.js';
 import { formatLimit, formatValue, type Cell } from '../format/values.js';
 import { composeDisclaimer, conditionText, specification, type SpecGroup } from './specification.js';
 import { ieee370Quality } from '../network/ieee370.js';
@@ -152,12 +152,12 @@ export interface Catalog {
 }
 
 
-const cell = (v: number | null, unit: string): Cell => ({ text: formatValue(v, unit), value: v !== null && Number.isFinite(v) ? v : null });
+const cell = (v: number | null, unit: string, resolutionHz: number | null = null): Cell => ({ text: formatValue(v, unit, resolutionHz), value: v !== null && Number.isFinite(v) ? v : null });
 const atCell = (hz: number | null): Cell => ({ text: hz === null ? '—' : formatFrequency(hz), value: hz });
 const verdictOf = (pass: boolean | null): 'PASS' | 'FAIL' | 'REPORT' => (pass === null ? 'REPORT' : pass ? 'PASS' : 'FAIL');
 
 
-function complianceRow(r: CheckResult): ComplianceRow {
+function complianceRow(r: CheckResult, res: number | null): ComplianceRow {
   return {
     label: r.label,
     figure: r.figure,
@@ -165,13 +165,13 @@ function complianceRow(r: CheckResult): ComplianceRow {
     band: r.band,
     bandRange: bandRange(r.fromHz, r.toHz),
     limit: formatLimit(r.limit, r.unit),
-    typical: cell(r.typical, r.unit),
-    worst: cell(r.worst, r.unit),
+    typical: cell(r.typical, r.unit, res),
+    worst: cell(r.worst, r.unit, res),
     worstUnit: r.worstUnit,
     at: atCell(r.worstAtHz),
-    margin: cell(r.margin, r.unit),
+    margin: cell(r.margin, r.unit, res),
     verdict: verdictOf(r.pass),
-    units: r.units.map((u) => ({ unit: u.unit, worst: cell(u.worst, r.unit), at: atCell(u.atHz), margin: cell(u.margin, r.unit), verdict: verdictOf(u.pass) })),
+    units: r.units.map((u) => ({ unit: u.unit, worst: cell(u.worst, r.unit, res), at: atCell(u.atHz), margin: cell(u.margin, r.unit, res), verdict: verdictOf(u.pass) })),
   };
 }
 
@@ -272,6 +272,9 @@ export async function buildPartPage(partFile: string, contentRoot: string, slug:
   const lo = largest(outcome.units.map((u) => u.network.freqHz[0]));
   const hi = smallest(outcome.units.map((u) => u.network.freqHz[u.network.freqHz.length - 1]));
   const operating = part.operatingBand ?? defaultOperatingBand(part);
+  // frequency figures are shown to the resolution the coarsest measured grid supports
+  const resolutions = outcome.units.map((u) => gridResolutionHz(u.network.freqHz)).filter((r): r is number => r !== null);
+  const resolution = resolutions.length ? largest(resolutions) : null;
   const seen = new Set<string>();
   const dataFiles = settings.publishData
     ? outcome.units.map((u) => {
@@ -308,10 +311,10 @@ export async function buildPartPage(partFile: string, contentRoot: string, slug:
     ports: Array.from({ length: outcome.units[0]?.network.ports ?? 0 }, (_, i) => ({ number: i + 1, name: part.portNames[i + 1] ?? `Port ${i + 1}` })),
     pass: result.pass,
     frequencyRange: bandRange(lo, hi),
-    specification: specification(part, result.results, referenceText(outcome.units)),
+    specification: specification(part, result.results, referenceText(outcome.units), resolution),
     typicalConditions: part.typicalAt ? conditionText(part.typicalAt) : '',
     disclaimer: settings.disclaimer ?? composeDisclaimer(result.results, part.declared.length > 0),
-    compliance: result.results.map(complianceRow),
+    compliance: result.results.map((r) => complianceRow(r, resolution)),
     plots,
     measurements: outcome.units.map((u, i) => measurement(u, part.measurements[i])),
     quality: outcome.units.map((u) => quality(part, u)),

@@ -49,13 +49,13 @@ const ASSURANCE_TEXT: Readonly<Record<Assurance, string>> = {
 
 export const conditionText = (c: Readonly<Record<string, string>>) => Object.entries(c).map(([k, v]) => `${k} ${v}`).join(', ');
 
-function specRow(r: CheckResult, when: Readonly<Record<string, string>> | null, typicalAt: Readonly<Record<string, string>> | null, reference: string): Omit<SpecRow, 'result'> {
+function specRow(r: CheckResult, when: Readonly<Record<string, string>> | null, typicalAt: Readonly<Record<string, string>> | null, reference: string, resolutionHz: number | null): Omit<SpecRow, 'result'> {
   const l = r.limit;
   const two = l?.tolerance !== undefined && l.nominal !== undefined;
   const min = two ? (l.nominal as number) - (l.tolerance as number) : (l?.min ?? null);
   const max = two ? (l.nominal as number) + (l.tolerance as number) : (l?.max ?? null);
   const d = displayUnit([min, max, r.typical], r.unit);
-  const num = (v: number | null): Cell => ({ text: formatNumber(v, r.unit, d), value: v !== null && Number.isFinite(v) ? v : null });
+  const num = (v: number | null): Cell => ({ text: formatNumber(v, r.unit, d, resolutionHz), value: v !== null && Number.isFinite(v) ? v : null });
   // a two-sided typical is shown as its deviation from nominal, so that units on either side do not read as cancelling
   const typ: Cell = two ? { text: `${formatNumber(l.nominal as number, r.unit, d)} ± ${formatNumber(Math.abs(r.typical - (l.nominal as number)), r.unit, d)}`, value: r.typical } : num(r.typical);
   // the part's typical-at is stated once above the table; a row says more only where its typical differs from that
@@ -74,7 +74,7 @@ function specRow(r: CheckResult, when: Readonly<Record<string, string>> | null, 
     unit: d.label,
     mark: r.assuredBy ? ASSURANCE_MARKS[r.assuredBy] : '',
     typicalNote,
-    summary: `${r.label} ${two ? typ.text + ' ' + d.label : formatValue(r.typical, r.unit)} typ${limitText && !two ? `, ${limitText}` : ''}`,
+    summary: `${r.label} ${two ? typ.text + ' ' + d.label : formatValue(r.typical, r.unit, resolutionHz)} typ${limitText && !two ? `, ${limitText}` : ''}`,
   };
 }
 
@@ -83,7 +83,7 @@ function specRow(r: CheckResult, when: Readonly<Record<string, string>> | null, 
  * first limits), grouped by band in the order the bands first appear, then
  * the vendor's declared specifications.
  */
-export function specification(part: NormalizedPart, results: readonly CheckResult[], reference: string): SpecGroup[] {
+export function specification(part: NormalizedPart, results: readonly CheckResult[], reference: string, resolutionHz: number | null = null): SpecGroup[] {
   const order = classOf(part.partClass).headline;
   const picked: CheckResult[] = [];
   for (const id of order) for (const r of results) if (r.figure === id && !picked.includes(r)) picked.push(r);
@@ -92,7 +92,7 @@ export function specification(part: NormalizedPart, results: readonly CheckResul
   for (const r of rows) {
     const title = `${r.band} (${bandRange(r.fromHz, r.toHz)})`;
     const list = groups.get(title) ?? [];
-    list.push({ ...specRow(r, part.checks[results.indexOf(r)]?.when ?? null, part.typicalAt, reference), result: results.indexOf(r) });
+    list.push({ ...specRow(r, part.checks[results.indexOf(r)]?.when ?? null, part.typicalAt, reference, resolutionHz), result: results.indexOf(r) });
     groups.set(title, list);
   }
   const out: SpecGroup[] = [...groups].map(([title, list]) => ({ title, rows: list }));

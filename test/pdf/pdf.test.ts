@@ -13,7 +13,9 @@ import { cpSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, 
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { formatValue } from '../../src/format/values.js';
+import { gridResolutionHz } from '../../src/format/units.js';
+import { formatValue as formatValueAt } from '../../src/format/values.js';
+import { readTouchstone } from '../../src/touchstone/read.js';
 import { haveBrowser } from '../support/browser.js';
 
 const ROOT = join(import.meta.dirname, '../..');
@@ -118,6 +120,10 @@ describe.skipIf(!haveBrowser || !havePoppler)('PDF datasheets', () => {
       for (const m of typicals) next(m[2].replace(/\s+/g, ' '), `typical ${m[1]}`);
 
       // the test report: typical, worst, margin of each row, then the worst and margin of each of its units
+      // (frequency figures to the resolution of the coarsest measured grid, as the pages show them)
+      const grids = readdirSync(join(ROOT, 'content/parts', slug, 'data')).map((f) => readTouchstone(readFileSync(join(ROOT, 'content/parts', slug, 'data', f)), { fileName: f }).value?.network.freqHz);
+      const res = Math.max(...grids.map((g) => (g ? (gridResolutionHz(g) ?? 0) : 0)));
+      const formatValue = (v: number, unit: string) => formatValueAt(v, unit, res || null);
       const inReport = check(join(dir, 'site/parts', slug, `${part}-report.pdf`), 'test report', 8)(/^\s*Compliance\s*$/m);
       for (const r of json.results as Array<{ figure: string; unit: string; typical: number; worst: number; margin: number | null; units: Array<{ unit: string; worst: number; margin: number | null }> }>) {
         inReport(formatValue(r.typical, r.unit), `${r.figure} typical`);
