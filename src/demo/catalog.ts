@@ -68,7 +68,7 @@ export const DEMO_PARTS: readonly DemoPart[] = [
     model: (rnd) => bandpass({ order: 5, rippleDb: 0.05, lowHz: 2.39e9, highHz: 2.51e9, q: 900, tolerance: 0.0015 }, grid(1.0e9, 4.0e9, 601), rnd),
   },
   {
-    slug: 'vt-att-10',
+    slug: 'vt-pad-10',
     ports: 2,
     // SN2003 was built with a damaged series resistor (+15 %): it fails the attenuation limit
     units: units('SN', 2001, 4, 10_000, 2, [{}, {}, { defect: 0.15 }, {}]),

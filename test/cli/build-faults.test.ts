@@ -40,7 +40,7 @@ function mount(ctx: TestContext, name: string, options: string): string {
 beforeAll(() => {
   dir = mkdtempSync(join(tmpdir(), 'scatterbook-faults-'));
   mkdirSync(join(dir, 'content/parts'), { recursive: true });
-  cpSync(join(ROOT, 'content/parts/vt-att-10'), join(dir, 'content/parts/vt-att-10'), { recursive: true });
+  cpSync(join(ROOT, 'content/parts/vt-pad-10'), join(dir, 'content/parts/vt-pad-10'), { recursive: true });
 });
 
 afterAll(() => {

@@ -28,7 +28,7 @@ function run(args: string[], cwd = dir, env: Record<string, string> = {}) {
 function project(name: string): string {
   const p = join(dir, name);
   mkdirSync(join(p, 'content/parts'), { recursive: true });
-  cpSync(join(ROOT, 'content/parts/vt-att-10'), join(p, 'content/parts/vt-att-10'), { recursive: true });
+  cpSync(join(ROOT, 'content/parts/vt-pad-10'), join(p, 'content/parts/vt-pad-10'), { recursive: true });
   writeFileSync(join(p, 'notes.txt'), 'the user\'s own notes\n');
   return p;
 }
@@ -42,7 +42,7 @@ describe('the output folder: never delete what scatterbook did not make', () => 
     ['the working folder (--out .)', '.', /--out \.: holds the content folder/],
     ['the content folder', 'content', /--out content: is the content folder/],
     ['inside the content folder', 'content/parts', /--out content\/parts: lies inside the content folder/],
-    ['a part folder inside the content folder', 'content/parts/vt-att-10', /lies inside the content folder/],
+    ['a part folder inside the content folder', 'content/parts/vt-pad-10', /lies inside the content folder/],
     ['above the working folder', '..', /holds the content folder|holds the working folder/],
     ['the root of the file system', '/', /is the root of the file system/],
   ];
@@ -96,7 +96,7 @@ describe('the output folder: never delete what scatterbook did not make', () => 
     writeFileSync(join(p, 'fresh/stale.html'), 'from an earlier build');
     expect(run(['build', 'content', '--out', 'fresh', '--no-pdf', '--no-cache'], p).status).toBe(0);
     expect(existsSync(join(p, 'fresh/stale.html'))).toBe(false);
-    expect(existsSync(join(p, 'fresh/parts/vt-att-10/index.html'))).toBe(true);
+    expect(existsSync(join(p, 'fresh/parts/vt-pad-10/index.html'))).toBe(true);
     expect(readFileSync(join(p, 'notes.txt'), 'utf8')).toBe('the user\'s own notes\n');
   });
 

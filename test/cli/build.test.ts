@@ -24,7 +24,7 @@ function run(args: string[]) {
 function content(name: string): string {
   const c = join(dir, name);
   mkdirSync(join(c, 'parts'), { recursive: true });
-  for (const slug of ['vt-att-10', 'vt-cbl-150']) cpSync(join(ROOT, 'content/parts', slug), join(c, 'parts', slug), { recursive: true });
+  for (const slug of ['vt-pad-10', 'vt-cbl-150']) cpSync(join(ROOT, 'content/parts', slug), join(c, 'parts', slug), { recursive: true });
   return c;
 }
 
@@ -38,8 +38,8 @@ describe('scatterbook build', () => {
     const r = run(['build', 'ok', '--out', 'site-ok', '--no-cache', '--no-pdf']);
     expect(r.status).toBe(0);
     expect(r.stdout).toMatch(/^built 2 parts into site-ok\/ in [\d.]+ s; open site-ok\/index\.html\n$/);
-    expect(r.stderr).toMatch(/^warning: VT-ATT-10 fails Attenuation/); // its damaged unit (see below)
-    expect(readdirSync(join(dir, 'site-ok/parts')).sort()).toEqual(['vt-att-10', 'vt-cbl-150']);
+    expect(r.stderr).toMatch(/^warning: VT-PAD-10 fails Attenuation/); // its damaged unit (see below)
+    expect(readdirSync(join(dir, 'site-ok/parts')).sort()).toEqual(['vt-pad-10', 'vt-cbl-150']);
     expect(existsSync(join(dir, 'site-ok/assets/scatterbook.css'))).toBe(true);
   });
 
@@ -65,17 +65,17 @@ describe('scatterbook build', () => {
     const index = readFileSync(join(dir, 'site-k/index.html'), 'utf8');
     expect(index).toContain('Parts not published');
     expect(index).toContain('vt-cbl-150/part.yaml');
-    expect(existsSync(join(dir, 'site-k/parts/vt-att-10/index.html'))).toBe(true);
+    expect(existsSync(join(dir, 'site-k/parts/vt-pad-10/index.html'))).toBe(true);
     expect(existsSync(join(dir, 'site-k/parts/vt-cbl-150'))).toBe(false);
   });
 
   it('escapes everything taken from a spec: <script> and "><img onerror=…> in title and notes render as text', () => {
     const c = content('evil');
-    const yaml = join(c, 'parts/vt-att-10/part.yaml');
+    const yaml = join(c, 'parts/vt-pad-10/part.yaml');
     const evil = '<script>alert(1)</script> "><img src=x onerror=alert(2)>';
     writeFileSync(yaml, readFileSync(yaml, 'utf8').replace(/^title: .*$/m, `title: '${evil}'`).replace(/^description: .*$/m, `description: '${evil}'\nnotes: |\n  Plain **bold** text.\n\n  ${evil}\n\n  [link](javascript:alert(3))`));
     expect(run(['build', 'evil', '--out', 'site-e', '--no-cache', '--no-pdf']).status).toBe(0);
-    const page = readFileSync(join(dir, 'site-e/parts/vt-att-10/index.html'), 'utf8');
+    const page = readFileSync(join(dir, 'site-e/parts/vt-pad-10/index.html'), 'utf8');
     expect(page).not.toContain('<script>alert(1)</script>');
     expect(page).not.toContain('<img src=x');
     expect(page).not.toMatch(/href="javascript:/i); // markdown-it refuses the link and leaves it as text
@@ -90,7 +90,7 @@ describe('scatterbook build', () => {
     mkdirSync(join(c, '_includes'));
     writeFileSync(join(c, '_includes/ports.njk'), '<section class="ports"><h2 id="ports-title">Connections</h2><p class="vendor-ports">{{ part.ports.length }} connections</p></section>\n');
     expect(run(['build', 'custom', '--out', 'site-c', '--no-cache', '--no-pdf']).status).toBe(0);
-    const page = readFileSync(join(dir, 'site-c/parts/vt-att-10/index.html'), 'utf8');
+    const page = readFileSync(join(dir, 'site-c/parts/vt-pad-10/index.html'), 'utf8');
     expect(page).toContain('<p class="vendor-ports">2 connections</p>');
     expect(page).toContain('id="headline-title"'); // the other templates are still ours
   });
@@ -100,7 +100,7 @@ describe('scatterbook build', () => {
     const args = ['build', 'cached', '--out', 'site-cache', '--no-pdf', '--cache', 'cache-dir'];
     expect(run(args).stdout).toMatch(/^built 2 parts into/);
     expect(run(args).stdout).toContain('(2 unchanged, from the cache)');
-    const data = join(c, 'parts/vt-att-10/data/sn2001.s2p');
+    const data = join(c, 'parts/vt-pad-10/data/sn2001.s2p');
     writeFileSync(data, `${readFileSync(data, 'utf8')}! a comment at the end changes size and time\n`);
     expect(run(args).stdout).toContain('(1 unchanged, from the cache)');
     const yaml = join(c, 'parts/vt-cbl-150/part.yaml');
@@ -112,7 +112,7 @@ describe('scatterbook build', () => {
 
   it('the cache never serves a stale page: an edit in place with the same size and time, site settings, template overrides', () => {
     const c = content('stale');
-    const data = join(c, 'parts/vt-att-10/data/sn2002.s2p');
+    const data = join(c, 'parts/vt-pad-10/data/sn2002.s2p');
     utimesSync(data, 1_700_000_000, 1_700_000_000); // a whole second, which utimes sets exactly
     const args = ['build', 'stale', '--out', 'site-stale', '--no-pdf', '--cache', 'cache-stale'];
     expect(run(args).status).toBe(0);
@@ -126,7 +126,7 @@ describe('scatterbook build', () => {
     expect(statSync(data).size).toBe(before.size);
     expect(statSync(data).mtimeMs).toBe(before.mtimeMs);
     expect(run(args).stdout).toContain('(1 unchanged, from the cache)');
-    const page = readFileSync(join(dir, 'site-stale/parts/vt-att-10/report.html'), 'utf8');
+    const page = readFileSync(join(dir, 'site-stale/parts/vt-pad-10/report.html'), 'utf8');
     expect(page).toContain(createHash('sha256').update(readFileSync(data)).digest('hex'));
     writeFileSync(join(c, 'site.yaml'), 'vendor: Another Name\n');
     expect(run(args).stdout).not.toContain('from the cache');
@@ -151,32 +151,32 @@ describe('scatterbook build', () => {
 
   it('two documents per part; declared specifications marked; measurement metadata on the report; site.yaml can keep reports and data files out', () => {
     const c = content('docs');
-    const yaml = join(c, 'parts/vt-att-10/part.yaml');
+    const yaml = join(c, 'parts/vt-pad-10/part.yaml');
     writeFileSync(
       yaml,
       readFileSync(yaml, 'utf8')
         .replace('  - {unit: SN2001, file: data/sn2001.s2p, conditions: {temperature: 25 °C}}', '  - {unit: SN2001, file: data/sn2001.s2p, conditions: {temperature: 25 °C}, instrument: 4-port analyser, calibration: SOLT 2026-09-30, date: 2026-10-01, operator: Q. Tester}')
-        .replace('ratings:', 'features: [Flat attenuation, Stainless-steel body]\ndeclared:\n  - {parameter: Power handling, max: 2, unit: W, conditions: "CW, 25 °C"}\nordering:\n  - {code: VT-ATT-10-SMA, description: SMA male to SMA female}\nratings:'),
+        .replace('ratings:', 'features: [Flat attenuation, Stainless-steel body]\ndeclared:\n  - {parameter: Power handling, max: 2, unit: W, conditions: "CW, 25 °C"}\nordering:\n  - {code: VT-PAD-10-SMA, description: SMA male to SMA female}\nratings:'),
     );
     expect(run(['build', 'docs', '--out', 'site-docs', '--no-cache', '--no-pdf']).status).toBe(0);
-    const sheet = readFileSync(join(dir, 'site-docs/parts/vt-att-10/index.html'), 'utf8');
+    const sheet = readFileSync(join(dir, 'site-docs/parts/vt-pad-10/index.html'), 'utf8');
     expect(sheet).toContain('<li>Flat attenuation</li>');
     expect(sheet).toMatch(/<tr class="spec-row declared">\s*<th scope="row">Power handling<sup class="mark">\*<\/sup>/);
     expect(sheet).toContain('Values marked * are declared by the vendor');
-    expect(sheet).toContain('VT-ATT-10-SMA');
-    expect(sheet).toContain('href="../../parts/vt-att-10/data/sn2001.s2p"');
+    expect(sheet).toContain('VT-PAD-10-SMA');
+    expect(sheet).toContain('href="../../parts/vt-pad-10/data/sn2001.s2p"');
     expect(sheet).not.toContain('id="compliance-title"');
-    expect(readFileSync(join(dir, 'site-docs/parts/vt-att-10/data/sn2001.s2p'), 'utf8')).toBe(readFileSync(join(c, 'parts/vt-att-10/data/sn2001.s2p'), 'utf8'));
-    const report = readFileSync(join(dir, 'site-docs/parts/vt-att-10/report.html'), 'utf8');
+    expect(readFileSync(join(dir, 'site-docs/parts/vt-pad-10/data/sn2001.s2p'), 'utf8')).toBe(readFileSync(join(c, 'parts/vt-pad-10/data/sn2001.s2p'), 'utf8'));
+    const report = readFileSync(join(dir, 'site-docs/parts/vt-pad-10/report.html'), 'utf8');
     expect(report).toContain('id="compliance-title"');
     expect(report).toContain('SOLT 2026-09-30');
     expect(report).toContain('Q. Tester');
     expect((report.match(/<tr class="unit" data-unit="SN2003">/g) ?? []).length).toBe(4); // every limit has the unit's row
     writeFileSync(join(c, 'site.yaml'), 'vendor: Test\nreports: false\npublish-data: false\n');
     expect(run(['build', 'docs', '--out', 'site-docs', '--no-cache', '--no-pdf']).status).toBe(0);
-    expect(existsSync(join(dir, 'site-docs/parts/vt-att-10/report.html'))).toBe(false);
-    expect(existsSync(join(dir, 'site-docs/parts/vt-att-10/data'))).toBe(false);
-    expect(readFileSync(join(dir, 'site-docs/parts/vt-att-10/index.html'), 'utf8')).not.toContain('Test report');
+    expect(existsSync(join(dir, 'site-docs/parts/vt-pad-10/report.html'))).toBe(false);
+    expect(existsSync(join(dir, 'site-docs/parts/vt-pad-10/data'))).toBe(false);
+    expect(readFileSync(join(dir, 'site-docs/parts/vt-pad-10/index.html'), 'utf8')).not.toContain('Test report');
   });
 
   it('a published part that fails a limit: a warning per failing limit on stderr; --strict exits 3 (the site is still written)', () => {
@@ -184,10 +184,10 @@ describe('scatterbook build', () => {
     const r = run(['build', 'gate', '--out', 'site-gate', '--no-cache', '--no-pdf']);
     expect(r.status).toBe(0);
     // the demo attenuator's unit SN2003 has a chipped resistor: its attenuation leaves 10 dB ± 0.5 dB
-    expect(r.stderr).toMatch(/^warning: VT-ATT-10 fails Attenuation on S21 over full: worst 10\.65 dB \(SN2003 at [\d.]+ MHz\) against 10\.00 dB ± 0\.50 dB\n$/);
+    expect(r.stderr).toMatch(/^warning: VT-PAD-10 fails Attenuation on S21 over full: worst 10\.65 dB \(SN2003 at [\d.]+ MHz\) against 10\.00 dB ± 0\.50 dB\n$/);
     const strict = run(['build', 'gate', '--out', 'site-gate', '--no-cache', '--no-pdf', '--strict']);
     expect(strict.status).toBe(3);
-    expect(existsSync(join(dir, 'site-gate/parts/vt-att-10/index.html'))).toBe(true);
+    expect(existsSync(join(dir, 'site-gate/parts/vt-pad-10/index.html'))).toBe(true);
   });
 
   it('an empty content folder is an error, and bad usage exits 2', () => {

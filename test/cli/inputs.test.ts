@@ -28,8 +28,8 @@ function run(args: string[], cwd = dir) {
 function content(name: string, edit: (yaml: string) => string = (y) => y): string {
   const c = join(dir, name);
   mkdirSync(join(c, 'parts'), { recursive: true });
-  cpSync(join(ROOT, 'content/parts/vt-att-10'), join(c, 'parts/vt-att-10'), { recursive: true });
-  const yaml = join(c, 'parts/vt-att-10/part.yaml');
+  cpSync(join(ROOT, 'content/parts/vt-pad-10'), join(c, 'parts/vt-pad-10'), { recursive: true });
+  const yaml = join(c, 'parts/vt-pad-10/part.yaml');
   writeFileSync(yaml, edit(readFileSync(yaml, 'utf8')));
   return c;
 }
@@ -41,10 +41,10 @@ beforeAll(() => {
 describe('what a data path really is', () => {
   it('a folder or a FIFO named as a measurement file is called what it is (and the FIFO never blocks)', () => {
     const c = content('paths');
-    const data = join(c, 'parts/vt-att-10/data');
+    const data = join(c, 'parts/vt-pad-10/data');
     mkdirSync(join(data, 'folder.s2p'));
     execFileSync('mkfifo', [join(data, 'pipe.s2p')]);
-    const yaml = join(c, 'parts/vt-att-10/part.yaml');
+    const yaml = join(c, 'parts/vt-pad-10/part.yaml');
     writeFileSync(yaml, readFileSync(yaml, 'utf8').replace('file: data/sn2001.s2p', 'file: data/folder.s2p').replace('file: data/sn2002.s2p', 'file: data/pipe.s2p'));
     const r = run(['figures', yaml]);
     expect(r.status).toBe(1);
@@ -96,14 +96,14 @@ describe('what a Touchstone file really holds', () => {
 describe('part files', () => {
   it('a port name for port 3 of a 2-port part is an error at its key', () => {
     const c = content('ports', (y) => y.replace('ports: {1: IN, 2: OUT}', 'ports: {1: IN, 2: OUT, 3: AUX}'));
-    const r = run(['figures', join(c, 'parts/vt-att-10/part.yaml')]);
+    const r = run(['figures', join(c, 'parts/vt-pad-10/part.yaml')]);
     expect(r.status).toBe(1);
     expect(r.stderr).toMatch(/part\.yaml:11:24: error: ports names port 3, but the measured files have 2 ports/);
   });
 
   it('a 63 MB part file is refused at once, unread', () => {
     const c = content('huge');
-    const yaml = join(c, 'parts/vt-att-10/part.yaml');
+    const yaml = join(c, 'parts/vt-pad-10/part.yaml');
     writeFileSync(yaml, `${readFileSync(yaml, 'utf8')}notes: "${'x'.repeat(63 * 1024 * 1024)}"\n`);
     const r = run(['figures', yaml]);
     expect(r.status).toBe(1);
@@ -112,8 +112,8 @@ describe('part files', () => {
   });
 
   it('control characters in part strings cannot drive the terminal: ESC[8m cannot hide a FAIL', () => {
-    const c = content('escape', (y) => y.replace('part: VT-ATT-10', 'part: "X: PASS\\e[8m"').replace('label: Attenuation,', 'label: "Att\\e[2K\\rPASS",'));
-    const r = run(['figures', join(c, 'parts/vt-att-10/part.yaml')]);
+    const c = content('escape', (y) => y.replace('part: VT-PAD-10', 'part: "X: PASS\\e[8m"').replace('label: Attenuation,', 'label: "Att\\e[2K\\rPASS",'));
+    const r = run(['figures', join(c, 'parts/vt-pad-10/part.yaml')]);
     expect(r.status).toBe(0);
     expect(r.stdout).not.toContain('\x1b');
     expect(r.stdout).not.toMatch(/\r/);

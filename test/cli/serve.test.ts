@@ -54,16 +54,16 @@ describe('scatterbook serve', () => {
   it('serves the site and rebuilds it when a part file changes', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'scatterbook-serve-'));
     mkdirSync(join(dir, 'content/parts'), { recursive: true });
-    cpSync(join(ROOT, 'content/parts/vt-att-10'), join(dir, 'content/parts/vt-att-10'), { recursive: true });
+    cpSync(join(ROOT, 'content/parts/vt-pad-10'), join(dir, 'content/parts/vt-pad-10'), { recursive: true });
     const port = await freePort();
     child = spawn(process.execPath, [join(ROOT, 'bin/scatterbook.js'), 'serve', 'content', '--port', String(port), '--out', 'site'], { cwd: dir, stdio: ['ignore', 'pipe', 'pipe'] });
-    const url = `http://127.0.0.1:${port}/parts/vt-att-10/index.html`;
+    const url = `http://127.0.0.1:${port}/parts/vt-pad-10/index.html`;
     const first = await until(async () => {
       const r = await fetch(url);
       return r.ok ? r.text() : null;
     }, 60_000);
     expect(first).toContain('Fixed attenuator, 10\u00a0dB');
-    const yaml = join(dir, 'content/parts/vt-att-10/part.yaml');
+    const yaml = join(dir, 'content/parts/vt-pad-10/part.yaml');
     writeFileSync(yaml, readFileSync(yaml, 'utf8').replace('title: Fixed attenuator, 10 dB, DC–18 GHz', 'title: Fixed attenuator, 10 dB, edited while serving'));
     const second = await until(async () => {
       const t = await (await fetch(url)).text();

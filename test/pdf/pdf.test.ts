@@ -46,7 +46,7 @@ beforeAll(() => {
 
 describe.skipIf(!haveBrowser || !havePoppler)('PDF datasheets', () => {
   it('the build prints one PDF per part and the pages link them', () => {
-    expect(build.stderr.split('\n').filter((l) => l && !l.startsWith('warning: VT-ATT-10 fails'))).toEqual([]); // the demo's one failing unit is warned about
+    expect(build.stderr.split('\n').filter((l) => l && !l.startsWith('warning: VT-PAD-10 fails'))).toEqual([]); // the demo's one failing unit is warned about
     expect(build.status).toBe(0);
     expect(build.stdout).toMatch(/built 8 parts, 16 PDFs \([\d.]+ per second after the browser started\)/);
     const index = readFileSync(join(dir, 'site/index.html'), 'utf8');
@@ -140,15 +140,15 @@ describe.skipIf(!haveBrowser || !havePoppler)('PDF datasheets', () => {
   it('a page asking for the network or a file outside the build folder: refused, reported, and the PDF still prints', () => {
     const content = join(dir, 'leaky');
     mkdirSync(join(content, 'parts'), { recursive: true });
-    cpSync(join(ROOT, 'content/parts/vt-att-10'), join(content, 'parts/vt-att-10'), { recursive: true });
+    cpSync(join(ROOT, 'content/parts/vt-pad-10'), join(content, 'parts/vt-pad-10'), { recursive: true });
     mkdirSync(join(content, '_includes'));
     writeFileSync(join(content, '_includes/notes.njk'), '<img src="https://example.invalid/tracker.png" alt=""><link rel="stylesheet" href="file:///etc/hostname"><img src="../../../../secret.png" alt="">\n');
     const r = run(['build', 'leaky', '--out', 'leaky-site', '--no-cache', '--pdf']);
     expect(r.status).toBe(0);
-    expect(r.stderr).toContain('parts/vt-att-10/index.html asked for https://example.invalid/tracker.png, which was refused');
+    expect(r.stderr).toContain('parts/vt-pad-10/index.html asked for https://example.invalid/tracker.png, which was refused');
     expect(r.stderr).toContain('asked for file:///etc/hostname, which was refused');
     expect(r.stderr).toMatch(/asked for file:\/\/\/[^ ]*secret\.png, which was refused/);
-    expect(Number(info(join(dir, 'leaky-site/parts/vt-att-10/VT-ATT-10.pdf')).Pages)).toBeGreaterThanOrEqual(1);
+    expect(Number(info(join(dir, 'leaky-site/parts/vt-pad-10/VT-PAD-10.pdf')).Pages)).toBeGreaterThanOrEqual(1);
   });
 });
 
@@ -161,7 +161,7 @@ describe('WebSockets, which pass request interception', () => {
     const port = (server.address() as AddressInfo).port;
     const content = join(dir, 'socket');
     mkdirSync(join(content, 'parts'), { recursive: true });
-    cpSync(join(ROOT, 'content/parts/vt-att-10'), join(content, 'parts/vt-att-10'), { recursive: true });
+    cpSync(join(ROOT, 'content/parts/vt-pad-10'), join(content, 'parts/vt-pad-10'), { recursive: true });
     mkdirSync(join(content, '_includes'));
     writeFileSync(join(content, '_includes/notes.njk'), `<script>new WebSocket('ws://127.0.0.1:${port}/leak'); fetch('http://127.0.0.1:${port}/leak2').catch(() => {});</script>\n`);
     const r = await new Promise<{ status: number | null; stderr: string }>((ok) => {
@@ -172,7 +172,7 @@ describe('WebSockets, which pass request interception', () => {
     });
     server.close();
     expect(r.status).toBe(0);
-    expect(r.stderr).toContain(`parts/vt-att-10/index.html asked for ws://127.0.0.1:${port}/leak, which was refused`);
+    expect(r.stderr).toContain(`parts/vt-pad-10/index.html asked for ws://127.0.0.1:${port}/leak, which was refused`);
     expect(r.stderr).toContain(`asked for http://127.0.0.1:${port}/leak2, which was refused`);
     expect(connections).toBe(0);
   }, 120_000);
@@ -181,13 +181,13 @@ describe('WebSockets, which pass request interception', () => {
 describe('without a browser', () => {
   it('the HTML still builds and the build exits 0 with a message saying how to get PDFs; --pdf exits 1', () => {
     mkdirSync(join(dir, 'nb/parts'), { recursive: true });
-    cpSync(join(ROOT, 'content/parts/vt-att-10'), join(dir, 'nb/parts/vt-att-10'), { recursive: true });
+    cpSync(join(ROOT, 'content/parts/vt-pad-10'), join(dir, 'nb/parts/vt-pad-10'), { recursive: true });
     const env = { SCATTERBOOK_NO_BROWSER_SEARCH: '1', SCATTERBOOK_BROWSER: undefined };
     const r = run(['build', 'nb', '--out', 'nb-site', '--no-cache'], env);
     expect(r.status).toBe(0);
     expect(r.stderr).toContain('note: no browser given, and SCATTERBOOK_NO_BROWSER_SEARCH forbids looking for one, so the site is built without PDFs; to print PDFs, install Chromium');
-    expect(existsSync(join(dir, 'nb-site/parts/vt-att-10/index.html'))).toBe(true);
-    expect(existsSync(join(dir, 'nb-site/parts/vt-att-10/VT-ATT-10.pdf'))).toBe(false);
+    expect(existsSync(join(dir, 'nb-site/parts/vt-pad-10/index.html'))).toBe(true);
+    expect(existsSync(join(dir, 'nb-site/parts/vt-pad-10/VT-PAD-10.pdf'))).toBe(false);
     const strict = run(['build', 'nb', '--out', 'nb-strict', '--no-cache', '--pdf'], env);
     expect(strict.status).toBe(1);
     expect(strict.stderr).toContain('error: PDFs are required (--pdf) but no browser given');
