@@ -99,7 +99,7 @@ export const DEMO_PARTS: readonly DemoPart[] = [
     units: units('SN', 5001, 3, 20_200, 4),
     write: { format: 'MA', frequencyUnit: 'GHz', significantDigits: 8 },
     noiseFloorDb: -90,
-    model: (rnd) => coupledLine(2e9, 20, { erEven: 6.5, erOdd: 6.35 }, loss(0.3, 0.03), { impedance: 0.005, length: 0.003 }, grid(1e9, 3e9, 401), rnd),
+    model: (rnd) => coupledLine(2e9, 20, { erEven: 6.5, erOdd: 6.35, zScale: 1.07 }, loss(0.3, 0.03), { impedance: 0.01, length: 0.003 }, grid(1e9, 3e9, 401), rnd),
   },
   {
     slug: 'vt-hyb90-2450',
@@ -123,7 +123,7 @@ export const DEMO_PARTS: readonly DemoPart[] = [
     units: units('SN', 8001, 3, 1_500, 2),
     write: { format: 'DB', frequencyUnit: 'GHz', significantDigits: 8 },
     noiseFloorDb: -90,
-    model: (rnd) => cable(1.5, 50, 1.45, loss(0.05, 0.008), { l: 0.12e-9, c: 0.06e-12 }, grid(0.01e9, 18e9, 901), rnd),
+    model: (rnd) => cable(1.5, 50, 1.45, loss(0.05, 0.008), { l: 0.12e-9, c: 0.06e-12 }, grid(0.01e9, 18e9, 3597), rnd),
   },
 ];
 

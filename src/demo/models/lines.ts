@@ -55,10 +55,12 @@ export function branchLine(f0: number, er: number, loss: { a: number; b: number 
  * and the rest by the coupler's two symmetries. Unequal mode permittivities
  * (as in microstrip) give the finite directivity of a real coupler.
  */
-export function coupledLine(f0: number, couplingDb: number, modes: { erEven: number; erOdd: number }, loss: { a: number; b: number }, spread: LineSpread, freqHz: Float64Array, rnd: Random): Network {
+export function coupledLine(f0: number, couplingDb: number, modes: { erEven: number; erOdd: number; zScale?: number }, loss: { a: number; b: number }, spread: LineSpread, freqHz: Float64Array, rnd: Random): Network {
   const k = Math.pow(10, -couplingDb / 20);
-  const z0e = 50 * Math.sqrt((1 + k) / (1 - k)) * (1 + rnd.normal(0, spread.impedance));
-  const z0o = 50 * Math.sqrt((1 - k) / (1 + k)) * (1 + rnd.normal(0, spread.impedance));
+  // zScale: the built coupler's impedance √(Z0e·Z0o) against 50 Ω (a manufacturing offset that sets its match, not its coupling)
+  const zs = modes.zScale ?? 1;
+  const z0e = 50 * zs * Math.sqrt((1 + k) / (1 - k)) * (1 + rnd.normal(0, spread.impedance));
+  const z0o = 50 * zs * Math.sqrt((1 - k) / (1 + k)) * (1 + rnd.normal(0, spread.impedance));
   const len = quarterWave(f0, (modes.erEven + modes.erOdd) / 2) * (1 + rnd.normal(0, spread.length));
   const alpha = lineLoss(loss.a, loss.b);
   const even = chainToNetwork([line(z0e, len, modes.erEven, alpha)], freqHz);
