@@ -4,6 +4,7 @@
  * coloured and dashed per parameter as on the other plots.
  */
 import type { PlotShape, PlotTexts } from './spec.js';
+import { PLOT_CONFIG, titleOf } from './style.js';
 
 export const SMITH_SIZE = 300;
 
@@ -46,14 +47,8 @@ export function smithSpecOf(shape: PlotShape, t: PlotTexts): Record<string, unkn
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     width: SMITH_SIZE,
     height: SMITH_SIZE,
-    title: { text: t.title, anchor: 'start', fontSize: 13 },
-    config: {
-      aria: false,
-      font: 'Inter, Helvetica, Arial, sans-serif',
-      axis: { labelFontSize: 10, titleFontSize: 11, domainColor: '#4a4f57', tickColor: '#4a4f57', labelColor: '#2b2f36', titleColor: '#2b2f36' },
-      view: { stroke: null },
-      background: 'white',
-    },
+    title: titleOf(t.title),
+    config: { ...PLOT_CONFIG, view: { stroke: null } },
     layer: [
       {
         name: 'smith_grid',

@@ -7,6 +7,7 @@
  */
 import type { PlotModel } from './model.js';
 import { smithGrid, smithSpecOf } from './smith-spec.js';
+import { PLOT_CONFIG, titleOf } from './style.js';
 
 export const PALETTE = ['#1f4e8c', '#b5651d', '#2e7d5b', '#6d4a99'] as const;
 export const DASHES: ReadonlyArray<readonly number[]> = [[1, 0], [7, 3], [2, 2], [9, 3, 2, 3]];
@@ -101,15 +102,8 @@ export function specOf(shape: PlotShape, t: PlotTexts): Record<string, unknown> 
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     width: WIDTH,
     height: HEIGHT,
-    title: { text: m.title, anchor: 'start', fontSize: 13 },
-    config: {
-      // the SVG carries one <title> and <desc> of our own; per-mark ARIA labels would repeat every data point
-      aria: false,
-      font: 'Inter, Helvetica, Arial, sans-serif',
-      axis: { labelFontSize: 10, titleFontSize: 11, gridColor: '#d9dde3', domainColor: '#4a4f57', tickColor: '#4a4f57', labelColor: '#2b2f36', titleColor: '#2b2f36' },
-      view: { stroke: '#9aa1ab' },
-      background: 'white',
-    },
+    title: titleOf(m.title),
+    config: PLOT_CONFIG,
     resolve: { scale: { color: 'shared', strokeDash: 'shared' } },
     layer: layers,
   };
