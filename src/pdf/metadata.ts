@@ -7,6 +7,7 @@
  * tagged structure.
  */
 import { PDFDocument } from 'pdf-lib';
+import { drawRunningText, type RunningText } from './running.js';
 
 export interface PdfMetadata {
   readonly title: string;
@@ -23,8 +24,9 @@ export function metadataDate(date: string | null): Date {
   return m ? new Date(Date.UTC(Number(m[1]), Number(m[2]) - 1, Number(m[3]))) : new Date(0);
 }
 
-export async function setPdfMetadata(bytes: Uint8Array, meta: PdfMetadata): Promise<Uint8Array> {
+export async function setPdfMetadata(bytes: Uint8Array, meta: PdfMetadata, running?: RunningText): Promise<Uint8Array> {
   const doc = await PDFDocument.load(bytes, { updateMetadata: false });
+  if (running) await drawRunningText(doc, running);
   const when = metadataDate(meta.date);
   doc.setTitle(meta.title, { showInWindowTitleBar: true });
   doc.setSubject(meta.subject);

@@ -5,7 +5,6 @@
  * files inside the build folder: every other request (the network, other
  * files) is refused and reported, and the page still prints.
  */
-import { escapeMarkup } from '../format/escape.js';
 import { mkdtempSync, realpathSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { availableParallelism, tmpdir } from 'node:os';
@@ -120,15 +119,6 @@ async function launch(found: FoundBrowser, profile: string, proxyPort: number): 
   }
 }
 
-/** Running header and footer; Chromium renders these apart from the page, so they carry their own explicit font size. */
-function templates(job: PrintJob): { headerTemplate: string; footerTemplate: string } {
-  const box = 'font-family: Inter, Helvetica, Arial, sans-serif; font-size: 8px; color: #4a4f57; width: 100%; padding: 0 15mm; display: flex; justify-content: space-between;';
-  return {
-    headerTemplate: `<div style="${box}"><span>${escapeMarkup(job.header.left)}</span><span>${escapeMarkup(job.header.right)}</span></div>`,
-    footerTemplate: `<div style="${box}"><span>${escapeMarkup(job.footer)}</span><span>page <span class="pageNumber"></span> of <span class="totalPages"></span></span></div>`,
-  };
-}
-
 function insideFolder(root: string, url: string): boolean {
   if (url.startsWith('data:') || url === 'about:blank') return true;
   if (!url.startsWith('file:')) return false;
@@ -165,14 +155,13 @@ async function printOne(page: Page, job: PrintJob, options: PrintOptions, rootUr
   const bytes = await page.pdf({
     format: options.paper,
     printBackground: true,
-    displayHeaderFooter: true,
-    ...templates(job),
+    displayHeaderFooter: false, // the running header and footer are drawn afterwards, in the page's typeface (running.ts)
     margin: { top: '18mm', bottom: '16mm', left: '15mm', right: '15mm' },
     outline: true,
     tagged: true,
     timeout: 60_000,
   });
-  writeFileAtomic(job.pdf, await setPdfMetadata(bytes, job.metadata));
+  writeFileAtomic(job.pdf, await setPdfMetadata(bytes, job.metadata, { header: job.header, footer: job.footer }));
 }
 
 export async function printAll(found: FoundBrowser, root: string, jobs: readonly PrintJob[], options: PrintOptions): Promise<PrintReport> {
