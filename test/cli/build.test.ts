@@ -39,7 +39,7 @@ describe('scatterbook build', () => {
     expect(r.status).toBe(0);
     expect(r.stdout).toMatch(/^built 2 parts into site-ok\/ in [\d.]+ s; open site-ok\/index\.html\n$/);
     expect(r.stderr).toMatch(/^warning: VT-PAD-10 fails Attenuation/); // its damaged unit (see below)
-    expect(readdirSync(join(dir, 'site-ok/parts')).sort()).toEqual(['vt-pad-10', 'vt-cbl-150']);
+    expect(readdirSync(join(dir, 'site-ok/parts')).sort()).toEqual(['vt-cbl-150', 'vt-pad-10']);
     expect(existsSync(join(dir, 'site-ok/assets/scatterbook.css'))).toBe(true);
   });
 
