@@ -23,9 +23,12 @@ export const ASSETS_DIR = join(PACKAGE_ROOT, 'src/site/assets');
 /** The typeface travels with the project (the npm package @fontsource/inter, SIL Open Font License), so pages and PDFs look alike everywhere. */
 export const FONT_WEIGHTS = [400, 600, 700] as const;
 
+/** Latin, and Greek for Γ, μ, Ω and the like (the stylesheet selects each by its unicode-range). */
+export const FONT_SUBSETS = ['latin', 'greek'] as const;
+
 export function fontFiles(): Array<{ from: string; to: string }> {
   const dir = join(dirname(createRequire(import.meta.url).resolve('@fontsource/inter/package.json')), 'files');
-  return FONT_WEIGHTS.map((w) => ({ from: join(dir, `inter-latin-${w}-normal.woff2`), to: `assets/fonts/inter-latin-${w}-normal.woff2` }));
+  return FONT_SUBSETS.flatMap((subset) => FONT_WEIGHTS.map((w) => ({ from: join(dir, `inter-${subset}-${w}-normal.woff2`), to: `assets/fonts/inter-${subset}-${w}-normal.woff2` })));
 }
 
 export interface SitePluginOptions {
