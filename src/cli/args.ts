@@ -11,7 +11,10 @@ export interface FlagSpec {
 
 export interface ParsedArgs {
   readonly positionals: string[];
+  /** The last value of each flag given (true for a flag without value). */
   readonly flags: Map<string, string | true>;
+  /** Every value of each flag given with one, in order (for flags that may repeat, such as --limit). */
+  readonly values: Map<string, string[]>;
 }
 
 export class UsageError extends Error {}
@@ -23,6 +26,7 @@ export function parseArgs(argv: readonly string[], specs: readonly FlagSpec[]): 
   const byName = new Map(specs.map((s) => [s.name, s]));
   const positionals: string[] = [];
   const flags = new Map<string, string | true>();
+  const values = new Map<string, string[]>();
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i];
     if (a === '--') {
@@ -45,10 +49,11 @@ export function parseArgs(argv: readonly string[], specs: readonly FlagSpec[]): 
       const v = eq >= 0 ? a.slice(eq + 1) : argv[++i];
       if (v === undefined || v === '') throw new UsageError(`--${name} needs a value`);
       flags.set(name, v);
+      values.set(name, [...(values.get(name) ?? []), v]);
     } else {
       if (eq >= 0) throw new UsageError(`--${name} takes no value`);
       flags.set(name, true);
     }
   }
-  return { positionals, flags };
+  return { positionals, flags, values };
 }

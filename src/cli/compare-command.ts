@@ -1,0 +1,123 @@
+/**
+ * `scatterbook compare FILE… --band FROM..TO [--limit "FIGURE ON max|min VALUE"]… [--reference OHMS] [--json] [--strict]`:
+ * the quick form of a comparison, for a first look without a comparison file.
+ * Each Touchstone file is a candidate labelled by its file name; the band is
+ * called "use"; each --limit is a requirement in a line of its own, e.g.
+ * "insertion-loss S21 max 1.5 dB", "return-loss S11+S22 min 15 dB",
+ * "phase-balance S21+S31 nominal 90 deg tolerance 5 deg". The requirement is
+ * read as a part file would be, so every figure and rule of `figures` applies.
+ */
+import { basename, resolve } from 'node:path';
+import { compareCandidates, type CandidateResult } from '../compare/compare.js';
+import { figuresJson } from '../evaluate/json.js';
+import { printable } from '../format/escape.js';
+import { bandRange, formatFrequency } from '../format/units.js';
+import { formatValue } from '../format/values.js';
+import { readTouchstoneFile } from '../io/touchstone-file.js';
+import { loadPartText } from '../spec/load.js';
+import { parseQuantity } from '../spec/quantity.js';
+import { formatDiagnostic } from '../touchstone/diagnostics.js';
+import { parseArgs, UsageError, type FlagSpec } from './args.js';
+import { EXIT, type Command } from './command.js';
+import { painter, type Terminal } from './terminal.js';
+
+const FLAGS: FlagSpec[] = [
+  { name: 'band', value: true, help: 'the band to compare over, FROM..TO with units, e.g. 2.40GHz..2.48GHz' },
+  { name: 'limit', value: true, help: 'a requirement, e.g. "insertion-loss S21 max 1.5 dB" (repeat for more)' },
+  { name: 'reference', value: true, help: 'the reference impedance every candidate is renormalized to, ohms (default 50)' },
+  { name: 'json', help: 'print the comparison as JSON on stdout' },
+  { name: 'strict', help: 'exit 3 when a candidate fails' },
+];
+
+const LIMIT = /^(\S+)\s+(\S+)\s+(.+)$/;
+const BOUND = /(max|min|nominal|tolerance)\s+(\S+(?:\s+(?:[a-zA-Zµ°]+))?)/g;
+
+/** The quick form's words as part-file YAML (lines of limits start at line LIMITS_LINE). */
+export function requirementYaml(files: readonly string[], band: string, limits: readonly string[]): { yaml: string; problems: string[] } {
+  const problems: string[] = [];
+  const [from, to] = band.split('..');
+  if (!from || !to) problems.push(`--band "${band}": expected FROM..TO with units, e.g. 2.40GHz..2.48GHz`);
+  else for (const q of [from, to]) if (!parseQuantity(q).ok) problems.push(`--band "${band}": "${q}" is not a frequency with its unit`);
+  const lines = limits.map((l) => {
+    const m = LIMIT.exec(l.trim());
+    if (!m) {
+      problems.push(`--limit "${l}": expected FIGURE ON max|min VALUE [UNIT], e.g. "insertion-loss S21 max 1.5 dB"`);
+      return '';
+    }
+    const bounds = [...m[3].matchAll(BOUND)].map((b) => `${b[1]}: ${JSON.stringify(b[2])}`);
+    if (!bounds.length) problems.push(`--limit "${l}": no max, min or nominal … tolerance …`);
+    return `  - {figure: ${JSON.stringify(m[1])}, on: ${JSON.stringify(m[2].split('+'))}, band: use, ${bounds.join(', ')}}`;
+  });
+  const units = files.map((f, i) => `  - {unit: ${JSON.stringify(`c${i + 1}`)}, file: ${JSON.stringify(basename(f))}}`);
+  return { yaml: `part: comparison\nclass: generic\nmeasurements:\n${units.join('\n')}\nbands:\n  use: {from: ${JSON.stringify(from ?? '')}, to: ${JSON.stringify(to ?? '')}}\nlimits:\n${lines.join('\n')}\n`, problems };
+}
+
+export function comparisonJson(title: string, referenceOhms: number, results: readonly CandidateResult[]): object {
+  return {
+    title,
+    reference: referenceOhms,
+    candidates: results.map((c) => ({ label: c.label, rank: c.rank, pass: c.pass, coverage: c.coverage, results: c.result ? (figuresJson(c.result) as { results: unknown[] }).results : [] })),
+  };
+}
+
+function table(results: readonly CandidateResult[], t: Terminal): string {
+  const p = painter(t.stdout, t.env);
+  const labels = [...new Map(results.flatMap((c) => c.result?.results ?? []).map((r) => [`${r.label} ${r.on.join(' ')}`, r])).values()];
+  const head = ['', ...results.map((c) => printable(c.label))];
+  const rows = labels.map((l) => {
+    const key = `${l.label} ${l.on.join(' ')}`;
+    const cells = results.map((c) => c.result?.results.find((r) => `${r.label} ${r.on.join(' ')}` === key) ?? null);
+    const best = Math.max(...cells.map((r) => (r?.margin ?? -Infinity)));
+    return [printable(key), ...cells.map((r) => (r ? `${formatValue(r.worst, r.unit)} ${r.pass ? 'PASS' : 'FAIL'}${r.margin === best && results.length > 1 ? ' *' : ''}` : 'no data'))];
+  });
+  rows.push(['rank', ...results.map((c) => (c.rank === null ? `— (${c.coverage === 'partial' ? 'partial data' : 'errors'})` : String(c.rank)))]);
+  const widths = head.map((_, i) => Math.max(head[i].length, ...rows.map((r) => r[i].length)));
+  const line = (cells: string[]) => cells.map((c, i) => c.padEnd(widths[i])).join('  ').trimEnd();
+  const gaps = results.flatMap((c) => c.gaps.map((g) => `${printable(c.label)}: no data over ${bandRange(g.fromHz, g.toHz)}${g.coveredFromHz === null ? '' : ` beyond ${formatFrequency(g.coveredFromHz)} to ${formatFrequency(g.coveredToHz as number)}`}`));
+  return [p.bold(line(head)), ...rows.map(line), ...(gaps.length ? ['', ...gaps] : []), '', '* the largest margin of the row; worst values over the band, PASS/FAIL against the requirement'].join('\n') + '\n';
+}
+
+export const compareCommand: Command = {
+  name: 'compare',
+  usage: 'scatterbook compare FILE… --band FROM..TO [--limit "FIGURE ON max|min VALUE"]… [--reference OHMS] [--json] [--strict]',
+  flags: FLAGS,
+  run(argv, t) {
+    const args = parseArgs(argv, FLAGS);
+    if (!args.positionals.length) throw new UsageError('compare takes one or more Touchstone files');
+    const band = args.flags.get('band');
+    if (typeof band !== 'string') throw new UsageError('compare needs --band FROM..TO, e.g. --band 2.40GHz..2.48GHz');
+    const refText = (args.flags.get('reference') as string | undefined) ?? '50';
+    const reference = Number(refText.replace(/\s*(ohm|Ω)$/i, ''));
+    if (!(reference > 0) || !Number.isFinite(reference)) throw new UsageError(`--reference needs a positive number of ohms, got "${refText}"`);
+    const limits = args.values.get('limit') ?? [];
+    const { yaml, problems } = requirementYaml(args.positionals, band, limits);
+    const fail = (lines: string[]) => {
+      for (const l of lines) t.stderr.write(`error: ${printable(l)}\n`);
+      return EXIT.badInput;
+    };
+    if (problems.length) return fail(problems);
+    const loaded = loadPartText(yaml, 'the requirement');
+    if (!loaded.value) {
+      // positions in the generated text are no use to the user: name the flag instead
+      const limitLine = yaml.split('\n').indexOf('limits:') + 1;
+      return fail(loaded.errors.map((e) => (e.line > limitLine && limits[e.line - limitLine - 1] ? `--limit "${limits[e.line - limitLine - 1]}": ${e.message}` : e.line > 0 && e.line <= limitLine ? `--band "${band}": ${e.message}` : e.message)));
+    }
+    const candidates = [];
+    const errors: string[] = [];
+    for (const [i, f] of args.positionals.entries()) {
+      const r = readTouchstoneFile(resolve(t.cwd, f));
+      if (!r.value) {
+        for (const e of r.errors) errors.push(formatDiagnostic(f, e));
+        continue;
+      }
+      candidates.push({ label: basename(f), units: [{ unit: basename(f), file: f, network: r.value.network, noise: r.value.noise, mixedModeOrder: r.value.info.mixedModeOrder, conditions: {}, fileAt: loaded.value.measurements[i].fileAt }] });
+    }
+    if (errors.length) return fail(errors);
+    const results = compareCandidates(loaded.value, candidates, reference);
+    const bad = results.flatMap((c) => c.errors.map((e) => `${c.label}: ${e.message}`));
+    if (bad.length) return fail(bad);
+    const title = `Quick comparison over ${bandRange(loaded.value.bands.get('use')?.fromHz ?? 0, loaded.value.bands.get('use')?.toHz ?? 0)}`;
+    t.stdout.write(args.flags.has('json') ? `${JSON.stringify(comparisonJson(title, reference, results), null, 2)}\n` : table(results, t));
+    return args.flags.has('strict') && results.some((c) => !c.pass) ? EXIT.limitFailed : EXIT.ok;
+  },
+};
