@@ -6,7 +6,7 @@ import { dirname, resolve } from 'node:path';
 import type { CheckResult, PartResult } from '../evaluate/evaluate.js';
 import { figuresJson } from '../evaluate/json.js';
 import { printable } from '../format/escape.js';
-import { formatFrequency, gridResolutionHz } from '../format/units.js';
+import { coarsestResolutionHz, formatFrequency } from '../format/units.js';
 import { formatLimit, formatValue } from '../format/values.js';
 import { evaluatePartFile } from '../pipeline/part.js';
 import { formatSpecError } from '../spec/diagnostics.js';
@@ -65,7 +65,7 @@ export const figuresCommand: Command = {
     }
     const r = outcome.result;
     for (const w of r.warnings) t.stderr.write(`${formatSpecError(w, w.file === file ? outcome.source : undefined, 'warning')}\n`);
-    const res = outcome.units.map((u) => gridResolutionHz(u.network.freqHz) ?? 0).reduce((a, b) => Math.max(a, b), 0) || null;
+    const res = coarsestResolutionHz(outcome.units.map((u) => u.network.freqHz));
     t.stdout.write(args.flags.has('json') ? `${JSON.stringify(figuresJson(r), null, 2)}\n` : figuresTable(r, painter(t.stdout, t.env), res));
     return !r.pass && args.flags.has('strict') ? EXIT.limitFailed : EXIT.ok;
   },

@@ -9,10 +9,10 @@
  * least margin over all limits (larger is better), ties broken by the
  * next-least margin, then by input order. Values only: no files.
  */
-import { evaluatePart, type PartResult, type UnitData } from '../evaluate/evaluate.js';
+import { evaluatePart, gridOf, type PartResult, type UnitData } from '../evaluate/evaluate.js';
 import { renormalize } from '../network/convert.js';
 import type { SpecError } from '../spec/diagnostics.js';
-import type { NormalizedPart } from '../spec/normalize.js';
+import type { NormalizedCheck, NormalizedPart } from '../spec/normalize.js';
 
 export interface Candidate {
   readonly label: string;
@@ -41,9 +41,11 @@ export interface CandidateResult {
   readonly margins: readonly number[];
 }
 
-/** Where a unit's data leave a band uncovered, or null when they cover it. */
-function gapOf(u: UnitData, band: { name: string; fromHz: number; toHz: number }): Gap | null {
-  const f = u.network.freqHz;
+/** Where a unit's data leave a check's band uncovered (on the grid the check is evaluated on), or null when they cover it. */
+function gapOf(u: UnitData, check: NormalizedCheck): Gap | null {
+  const band = check.band;
+  const f = gridOf(check, u);
+  if (!f) return { band: band.name, fromHz: band.fromHz, toHz: band.toHz, coveredFromHz: null, coveredToHz: null, unit: u.unit };
   const lo = f[0], hi = f[f.length - 1];
   if (band.fromHz >= lo && band.toHz <= hi) return null;
   const from = Math.max(lo, band.fromHz), to = Math.min(hi, band.toHz);
@@ -65,7 +67,7 @@ export function compareCandidates(requirement: NormalizedPart, candidates: reado
     const units = c.units.map((u) => ({ ...u, network: renormalize(u.network, referenceOhms) }));
     const gaps: Gap[] = [];
     const covered = requirement.checks.filter((check) => {
-      const own = units.map((u) => gapOf(u, check.band)).filter((g): g is Gap => g !== null);
+      const own = units.map((u) => gapOf(u, check)).filter((g): g is Gap => g !== null);
       for (const g of own) if (!gaps.some((x) => x.band === g.band && x.unit === g.unit)) gaps.push(g);
       return own.length === 0;
     });

@@ -222,8 +222,7 @@ function evaluateCheck(part: NormalizedPart, check: NormalizedCheck, all: readon
   const unitResults: UnitResult[] = [];
   const onNoise = check.figure.grid === 'noise';
   for (const u of units) {
-    if (onNoise && !u.noise) problem('figure-undefined', `${check.figure.id} needs noise parameters, and ${u.file} (unit ${u.unit}) has none (a Touchstone noise block follows the network data of a 2-port)`);
-    const f = onNoise ? (u.noise as NoiseParameters).freqHz : u.network.freqHz;
+    const f = gridOf(check, u) ?? problem('figure-undefined', `${check.figure.id} needs noise parameters, and ${u.file} (unit ${u.unit}) has none (a Touchstone noise block follows the network data of a 2-port)`);
     const lo = f[0], hi = f[f.length - 1];
     if (band.fromHz < lo || band.toHz > hi) {
       problem('band-outside-data', `band ${band.name} (${formatFrequency(band.fromHz)} to ${formatFrequency(band.toHz)}) reaches outside the ${onNoise ? 'noise frequencies' : 'measured range'} of ${u.file} (${formatFrequency(lo)} to ${formatFrequency(hi)})`, band.at);
@@ -293,6 +292,11 @@ function evaluateCheck(part: NormalizedPart, check: NormalizedCheck, all: readon
     pass: limit ? unitResults.every((r) => r.pass === true) : null,
     units: unitResults,
   };
+}
+
+/** The frequencies a check is evaluated on for a unit: the noise frequencies for noise figures (null when the file has none), else the network's. */
+export function gridOf(check: NormalizedCheck, u: UnitData): Float64Array | null {
+  return check.figure.grid === 'noise' ? (u.noise?.freqHz ?? null) : u.network.freqHz;
 }
 
 /**

@@ -35,6 +35,16 @@ export function gridResolutionHz(freqHz: ArrayLike<number>): number | null {
   return median > 0 ? Math.pow(10, Math.floor(Math.log10(median) + 1e-9)) : null;
 }
 
+/** The resolution frequency figures of several measured grids are shown to: the coarsest of theirs, or null. */
+export function coarsestResolutionHz(grids: ReadonlyArray<ArrayLike<number>>): number | null {
+  let out: number | null = null;
+  for (const g of grids) {
+    const r = gridResolutionHz(g);
+    if (r !== null && (out === null || r > out)) out = r;
+  }
+  return out;
+}
+
 /** A frequency rounded to a resolution: "136 MHz" for 135.8415 MHz on a 1 MHz resolution. */
 export function formatFrequencyTo(hz: number, resolutionHz: number | null): string {
   if (!Number.isFinite(hz) || !resolutionHz) return formatFrequency(hz, 7);

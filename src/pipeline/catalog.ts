@@ -8,7 +8,7 @@ import { basename, join, relative, sep } from 'node:path';
 import type { CheckResult } from '../evaluate/evaluate.js';
 import { figuresJson } from '../evaluate/json.js';
 import { largest, smallest } from '../evaluate/stats.js';
-import { bandRange, formatFrequency, gridResolutionHz, trimNumber } from '../format/units.js';
+import { bandRange, coarsestResolutionHz, formatFrequency, trimNumber } from '../format/units.js';
 import { formatLimit, formatValue, type Cell } from '../format/values.js';
 import { composeDisclaimer, conditionText, specification, type SpecGroup } from './specification.js';
 import { ieee370Quality } from '../network/ieee370.js';
@@ -273,8 +273,7 @@ export async function buildPartPage(partFile: string, contentRoot: string, slug:
   const hi = smallest(outcome.units.map((u) => u.network.freqHz[u.network.freqHz.length - 1]));
   const operating = part.operatingBand ?? defaultOperatingBand(part);
   // frequency figures are shown to the resolution the coarsest measured grid supports
-  const resolutions = outcome.units.map((u) => gridResolutionHz(u.network.freqHz)).filter((r): r is number => r !== null);
-  const resolution = resolutions.length ? largest(resolutions) : null;
+  const resolution = coarsestResolutionHz(outcome.units.map((u) => u.network.freqHz));
   const seen = new Set<string>();
   const dataFiles = settings.publishData
     ? outcome.units.map((u) => {

@@ -2,9 +2,10 @@
  * One part from disk: its YAML, its measured files, its figures. The only
  * stage that touches files for a part; everything it calls is pure.
  */
-import { realpathSync, statSync } from 'node:fs';
+import { statSync } from 'node:fs';
+import { realPath, within } from '../io/output-folder.js';
 import { notAFile, readYamlFile } from '../io/text-file.js';
-import { dirname, isAbsolute, relative, resolve, sep } from 'node:path';
+import { dirname, isAbsolute, relative, resolve } from 'node:path';
 import { evaluatePart, type PartResult, type UnitData } from '../evaluate/evaluate.js';
 import { loadExpressionCompiler, type ExpressionCompiler } from '../figures/expression.js';
 import { readTouchstoneFile } from '../io/touchstone-file.js';
@@ -42,17 +43,9 @@ export interface StageTimes {
 
 export const newStageTimes = (): StageTimes => ({ read: 0, figures: 0, plots: 0, pages: 0 });
 
-/** True when `target` lies inside `root` (both resolved, links followed where they exist). */
+/** True when `target` lies inside `root` (links resolved as far as each path exists). */
 export function isInside(root: string, target: string): boolean {
-  const real = (p: string) => {
-    try {
-      return realpathSync(p);
-    } catch {
-      return resolve(p);
-    }
-  };
-  const rel = relative(real(root), real(target));
-  return rel === '' || (!rel.startsWith(`..${sep}`) && rel !== '..' && !isAbsolute(rel));
+  return within(realPath(root), realPath(target));
 }
 
 /**

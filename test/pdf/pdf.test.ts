@@ -13,7 +13,7 @@ import { cpSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, 
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { gridResolutionHz } from '../../src/format/units.js';
+import { coarsestResolutionHz } from '../../src/format/units.js';
 import { formatValue as formatValueAt } from '../../src/format/values.js';
 import { readTouchstone } from '../../src/touchstone/read.js';
 import { haveBrowser } from '../support/browser.js';
@@ -122,8 +122,8 @@ describe.skipIf(!haveBrowser || !havePoppler)('PDF datasheets', () => {
       // the test report: typical, worst, margin of each row, then the worst and margin of each of its units
       // (frequency figures to the resolution of the coarsest measured grid, as the pages show them)
       const grids = readdirSync(join(ROOT, 'content/parts', slug, 'data')).map((f) => readTouchstone(readFileSync(join(ROOT, 'content/parts', slug, 'data', f)), { fileName: f }).value?.network.freqHz);
-      const res = Math.max(...grids.map((g) => (g ? (gridResolutionHz(g) ?? 0) : 0)));
-      const formatValue = (v: number, unit: string) => formatValueAt(v, unit, res || null);
+      const res = coarsestResolutionHz(grids.filter((g): g is Float64Array => g !== undefined));
+      const formatValue = (v: number, unit: string) => formatValueAt(v, unit, res);
       const inReport = check(join(dir, 'site/parts', slug, `${part}-report.pdf`), 'test report', 8)(/^\s*Compliance\s*$/m);
       for (const r of json.results as Array<{ figure: string; unit: string; typical: number; worst: number; margin: number | null; units: Array<{ unit: string; worst: number; margin: number | null }> }>) {
         inReport(formatValue(r.typical, r.unit), `${r.figure} typical`);
