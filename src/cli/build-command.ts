@@ -172,7 +172,7 @@ async function buildAndPublish(o: BuildOptions, t: Terminal, started: number): P
     }
   }
   t.stdout.write(
-    `built ${catalog.parts.length} part${catalog.parts.length === 1 ? '' : 's'}${pdfNote}${failed ? `, ${failed} left out with errors` : ''}${built.cacheHits ? ` (${built.cacheHits} unchanged, from the cache)` : ''} into ${rel(o.out)}/ in ${(ms / 1000).toFixed(1)} s; open ${rel(join(o.out, 'index.html'))}\n`,
+    `built ${catalog.parts.length} part${catalog.parts.length === 1 ? '' : 's'}${catalog.comparisons.length ? ` and ${catalog.comparisons.length} comparison${catalog.comparisons.length === 1 ? '' : 's'}` : ''}${pdfNote}${failed ? `, ${failed} left out with errors` : ''}${built.cacheHits ? ` (${built.cacheHits} unchanged, from the cache)` : ''} into ${rel(o.out)}/ in ${(ms / 1000).toFixed(1)} s; open ${rel(join(o.out, 'index.html'))}\n`,
   );
   return { code: failed ? 1 : 0, parts: catalog.parts.length, failed, failing, ms };
 }

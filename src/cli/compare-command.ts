@@ -9,16 +9,20 @@
  */
 import { basename, resolve } from 'node:path';
 import { compareCandidates, type CandidateResult } from '../compare/compare.js';
-import { figuresJson } from '../evaluate/json.js';
+import { comparisonJson } from '../compare/json.js';
 import { printable } from '../format/escape.js';
-import { bandRange, formatFrequency } from '../format/units.js';
-import { formatValue } from '../format/values.js';
+import { bandRange, coarsestResolutionHz, trimNumber } from '../format/units.js';
+import { formatLimit, formatValue } from '../format/values.js';
+import { rankReasons } from '../compare/explain.js';
+import { contentRootOf, evaluateComparisonFile } from '../pipeline/comparison.js';
+import { formatSpecError } from '../spec/diagnostics.js';
+import type { NormalizedPart } from '../spec/normalize.js';
 import { readTouchstoneFile } from '../io/touchstone-file.js';
 import { loadPartText } from '../spec/load.js';
 import { parseQuantity } from '../spec/quantity.js';
 import { formatDiagnostic } from '../touchstone/diagnostics.js';
 import { parseArgs, UsageError, type FlagSpec } from './args.js';
-import { EXIT, type Command } from './command.js';
+import { EXIT, type Command, type ExitCode } from './command.js';
 import { painter, type Terminal } from './terminal.js';
 
 const FLAGS: FlagSpec[] = [
@@ -52,38 +56,69 @@ export function requirementYaml(files: readonly string[], band: string, limits: 
   return { yaml: `part: comparison\nclass: generic\nmeasurements:\n${units.join('\n')}\nbands:\n  use: {from: ${JSON.stringify(from ?? '')}, to: ${JSON.stringify(to ?? '')}}\nlimits:\n${lines.join('\n')}\n`, problems };
 }
 
-export function comparisonJson(title: string, referenceOhms: number, results: readonly CandidateResult[]): object {
-  return {
-    title,
-    reference: referenceOhms,
-    candidates: results.map((c) => ({ label: c.label, rank: c.rank, pass: c.pass, coverage: c.coverage, results: c.result ? (figuresJson(c.result) as { results: unknown[] }).results : [] })),
-  };
+/** The side-by-side table: limits as rows, candidates as columns, the best margin of a row marked, the rank row, then the reasons and gaps. */
+function table(requirement: NormalizedPart, results: readonly CandidateResult[], reasons: readonly string[], t: Terminal): string {
+  const p = painter(t.stdout, t.env);
+  const resolution = coarsestResolutionHz(results.flatMap((c) => c.units.map((u) => u.network.freqHz)));
+  const head = ['', 'limit', ...results.map((c) => printable(c.label))];
+  const rows = requirement.checks.map((check, i) => {
+    const cells = results.map((c) => c.byCheck[i]);
+    const margins = cells.flatMap((r) => (r && r.margin !== null ? [r.margin] : []));
+    const best = margins.length > 1 ? Math.max(...margins) : null;
+    return [
+      printable(`${check.label} ${check.on.join(' ')} over ${check.band.name}`),
+      formatLimit(check.limit, check.figure.unit),
+      ...cells.map((r) => (r ? `${formatValue(r.worst, r.unit, resolution)} ${r.pass === false ? p.red('FAIL') : p.green('PASS')}${best !== null && r.margin === best ? ' *' : ''}` : 'no data')),
+    ];
+  });
+  rows.push(['rank', '', ...results.map((c) => (c.rank === null ? `— (${c.coverage === 'partial' ? 'partial data' : 'errors'})` : String(c.rank)))]);
+  const visible = (x: string) => x.replace(/\x1b\[[0-9;]*m/g, '').length;
+  const widths = head.map((_, i) => Math.max(head[i].length, ...rows.map((r) => visible(r[i]))));
+  const line = (cells: string[]) => cells.map((c, i) => c + ' '.repeat(Math.max(0, widths[i] - visible(c)))).join('  ').trimEnd();
+  const gaps = results.flatMap((c) =>
+    [...new Map(c.gaps.map((g) => [g.band, g])).values()].map((g) => `${printable(c.label)}: ${g.coveredFromHz === null ? `no data at all in ${g.band} (${bandRange(g.fromHz, g.toHz)})` : `data cover ${bandRange(g.coveredFromHz, g.coveredToHz as number)} of ${g.band} (${bandRange(g.fromHz, g.toHz)}) only`}`),
+  );
+  return [p.bold(line(head)), ...rows.map(line), '', ...reasons.map(printable), ...(gaps.length ? ['', ...gaps] : []), '', '* the largest margin of the row; worst values over the band, PASS/FAIL against the requirement'].join('\n') + '\n';
 }
 
-function table(results: readonly CandidateResult[], t: Terminal): string {
-  const p = painter(t.stdout, t.env);
-  const labels = [...new Map(results.flatMap((c) => c.result?.results ?? []).map((r) => [`${r.label} ${r.on.join(' ')}`, r])).values()];
-  const head = ['', ...results.map((c) => printable(c.label))];
-  const rows = labels.map((l) => {
-    const key = `${l.label} ${l.on.join(' ')}`;
-    const cells = results.map((c) => c.result?.results.find((r) => `${r.label} ${r.on.join(' ')}` === key) ?? null);
-    const best = Math.max(...cells.map((r) => (r?.margin ?? -Infinity)));
-    return [printable(key), ...cells.map((r) => (r ? `${formatValue(r.worst, r.unit)} ${r.pass ? 'PASS' : 'FAIL'}${r.margin === best && results.length > 1 ? ' *' : ''}` : 'no data'))];
-  });
-  rows.push(['rank', ...results.map((c) => (c.rank === null ? `— (${c.coverage === 'partial' ? 'partial data' : 'errors'})` : String(c.rank)))]);
-  const widths = head.map((_, i) => Math.max(head[i].length, ...rows.map((r) => r[i].length)));
-  const line = (cells: string[]) => cells.map((c, i) => c.padEnd(widths[i])).join('  ').trimEnd();
-  const gaps = results.flatMap((c) => c.gaps.map((g) => `${printable(c.label)}: no data over ${bandRange(g.fromHz, g.toHz)}${g.coveredFromHz === null ? '' : ` beyond ${formatFrequency(g.coveredFromHz)} to ${formatFrequency(g.coveredToHz as number)}`}`));
-  return [p.bold(line(head)), ...rows.map(line), ...(gaps.length ? ['', ...gaps] : []), '', '* the largest margin of the row; worst values over the band, PASS/FAIL against the requirement'].join('\n') + '\n';
+/** `compare COMPARISON.yaml`: the comparison file's candidates against its requirement. */
+async function compareFile(file: string, args: ReturnType<typeof parseArgs>, t: Terminal): Promise<ExitCode> {
+  const path = resolve(t.cwd, file);
+  const outcome = await evaluateComparisonFile(path, contentRootOf(path), file);
+  if (!outcome.comparison || outcome.errors.length) {
+    for (const e of outcome.errors) t.stderr.write(`${formatSpecError(e, e.file === file ? outcome.source : undefined)}\n`);
+    return EXIT.badInput;
+  }
+  const c = outcome.comparison;
+  const results = outcome.results;
+  if (args.flags.has('json')) t.stdout.write(`${JSON.stringify(comparisonJson(c.title, c.referenceOhms, results), null, 2)}\n`);
+  else {
+    let text = `${painter(t.stdout, t.env).bold(printable(c.title))} (every candidate at ${trimNumber(c.referenceOhms)} Ω)\n\n${table(c.requirement, results, outcome.reasons, t)}`;
+    if (outcome.differences && c.baseline) {
+      const lines = outcome.differences.flatMap((d) =>
+        d.limits.flatMap((l) => {
+          const check = c.requirement.checks[l.check];
+          return l.worst === null ? [] : [`  ${printable(d.label)}: ${check.label} ${check.on.join(' ')} over ${check.band.name}: ${l.worst > 0 ? '+' : ''}${formatValue(l.worst, check.figure.unit)}`];
+        }),
+      );
+      if (lines.length) text += `\nworst minus the worst of ${printable(c.baseline)}:\n${lines.join('\n')}\n`;
+    }
+    t.stdout.write(text);
+  }
+  return args.flags.has('strict') && results.some((r) => !r.pass) ? EXIT.limitFailed : EXIT.ok;
 }
 
 export const compareCommand: Command = {
   name: 'compare',
-  usage: 'scatterbook compare FILE… --band FROM..TO [--limit "FIGURE ON max|min VALUE"]… [--reference OHMS] [--json] [--strict]',
+  usage: 'scatterbook compare COMPARISON.yaml [--json] [--strict]\n       scatterbook compare FILE… --band FROM..TO [--limit "FIGURE ON max|min VALUE"]… [--reference OHMS] [--json] [--strict]',
   flags: FLAGS,
-  run(argv, t) {
+  async run(argv, t) {
     const args = parseArgs(argv, FLAGS);
-    if (!args.positionals.length) throw new UsageError('compare takes one or more Touchstone files');
+    if (!args.positionals.length) throw new UsageError('compare takes a comparison file, or one or more Touchstone files with --band');
+    if (args.positionals.length === 1 && /\.ya?ml$/i.test(args.positionals[0])) {
+      for (const f of ['band', 'limit', 'reference']) if (args.flags.has(f) || args.values.has(f)) throw new UsageError(`--${f} belongs to the quick form; a comparison file sets its own bands, limits and reference`);
+      return compareFile(args.positionals[0], args, t);
+    }
     const band = args.flags.get('band');
     if (typeof band !== 'string') throw new UsageError('compare needs --band FROM..TO, e.g. --band 2.40GHz..2.48GHz');
     const refText = (args.flags.get('reference') as string | undefined) ?? '50';
@@ -114,10 +149,11 @@ export const compareCommand: Command = {
     }
     if (errors.length) return fail(errors);
     const results = compareCandidates(loaded.value, candidates, reference);
+    const reasons = rankReasons(results);
     const bad = results.flatMap((c) => c.errors.map((e) => `${c.label}: ${e.message}`));
     if (bad.length) return fail(bad);
     const title = `Quick comparison over ${bandRange(loaded.value.bands.get('use')?.fromHz ?? 0, loaded.value.bands.get('use')?.toHz ?? 0)}`;
-    t.stdout.write(args.flags.has('json') ? `${JSON.stringify(comparisonJson(title, reference, results), null, 2)}\n` : table(results, t));
+    t.stdout.write(args.flags.has('json') ? `${JSON.stringify(comparisonJson(title, reference, results), null, 2)}\n` : table(loaded.value, results, reasons, t));
     return args.flags.has('strict') && results.some((c) => !c.pass) ? EXIT.limitFailed : EXIT.ok;
   },
 };

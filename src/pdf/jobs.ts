@@ -15,11 +15,26 @@ export const reportPdfFileName = (part: string, slug: string) => pdfFileName(par
 export function withPdfLinks(catalog: Catalog): Catalog {
   const parts = catalog.parts.map((p) => ({ ...p, pdfUrl: `parts/${p.slug}/${pdfFileName(p.part, p.slug)}`, reportPdfUrl: p.reportUrl ? `parts/${p.slug}/${reportPdfFileName(p.part, p.slug)}` : null }));
   const find = (p: Catalog['parts'][number]) => parts.find((q) => q.slug === p.slug) ?? p;
-  return { ...catalog, parts, reportParts: catalog.reportParts.map(find), byClass: catalog.byClass.map((g) => ({ ...g, parts: g.parts.map(find) })) };
+  const comparisons = catalog.comparisons.map((c) => ({ ...c, pdfUrl: `comparisons/${c.slug}/${comparisonPdfFileName(c.slug)}` }));
+  return { ...catalog, parts, comparisons, reportParts: catalog.reportParts.map(find), byClass: catalog.byClass.map((g) => ({ ...g, parts: g.parts.map(find) })) };
 }
 
-/** The datasheet of every part, then its test report where reports are built. */
+/** comparisons/<slug>/<slug>-comparison.pdf */
+export const comparisonPdfFileName = (slug: string) => `${slug.replace(/[^A-Za-z0-9._-]+/g, '_')}-comparison.pdf`;
+
+/** The datasheet of every part, then its test report where reports are built; then every comparison. */
 export function printJobs(catalog: Catalog, root: string, version: string): PrintJob[] {
+  const comparisons = catalog.comparisons.map((c): PrintJob => ({
+    html: join(root, 'comparisons', c.slug, 'index.html'),
+    pdf: join(root, 'comparisons', c.slug, comparisonPdfFileName(c.slug)),
+    metadata: { title: `${c.title} (comparison)`, subject: `comparison of ${c.candidates.length} candidate parts`, author: catalog.site.vendor, keywords: ['comparison', ...c.candidates.map((x) => x.label)], date: c.date || null, creator: `scatterbook ${version}` },
+    header: { left: 'Comparison of candidate parts', right: `${c.title}${c.date ? ` · ${c.date}` : ''}` },
+    footer: `${c.title}`,
+  }));
+  return [...partJobs(catalog, root, version), ...comparisons];
+}
+
+function partJobs(catalog: Catalog, root: string, version: string): PrintJob[] {
   return catalog.parts.flatMap((p) => {
     const metadata = (what: string) => ({
       title: `${p.title ? `${p.part} — ${p.title}` : p.part}${what === 'datasheet' ? '' : ` (${what})`}`,

@@ -1,10 +1,15 @@
 /**
- * The whole content folder → Catalog, with an optional cache of part pages by
- * the hash of their inputs, and a progress callback.
+ * The whole content folder → Catalog (its parts, then its comparisons), with
+ * an optional cache of part pages by the hash of their inputs, and a progress
+ * callback.
  */
 import { openCache } from './cache.js';
 import { assembleCatalog, buildPartPage, partFolders, readSettings, type Catalog, type PartFailure, type PartPage } from './catalog.js';
 import type { StageTimes } from './part.js';
+import { relative } from 'node:path';
+import { formatSpecError } from '../spec/diagnostics.js';
+import { comparisonFiles, evaluateComparisonFile } from './comparison.js';
+import { buildComparisonPage, type ComparisonPage } from './comparison-page.js';
 
 export interface BuildCatalogOptions {
   readonly cacheDir?: string | null;
@@ -53,5 +58,16 @@ export async function buildCatalog(contentRoot: string, options: BuildCatalogOpt
     if (r.page) pages.push(r.page);
     if (r.failure) failures.push(r.failure);
   }
-  return { catalog: assembleCatalog(settings, pages, failures, options.version), settingsErrors: errors, cacheHits: hits };
+  // comparisons read the parts they name afresh (their files are checked like any candidate's)
+  const comparisons: ComparisonPage[] = [];
+  for (const { slug, file } of comparisonFiles(contentRoot)) {
+    const display = relative(process.cwd(), file) || file;
+    const outcome = await evaluateComparisonFile(file, contentRoot, display);
+    if (outcome.errors.length || !outcome.comparison) {
+      failures.push({ slug: `comparisons/${slug}`, file: display, messages: outcome.errors.map((e) => formatSpecError(e, e.file === display ? outcome.source : undefined)) });
+      continue;
+    }
+    comparisons.push(await buildComparisonPage(outcome, slug, contentRoot));
+  }
+  return { catalog: assembleCatalog(settings, pages, failures, options.version, comparisons), settingsErrors: errors, cacheHits: hits };
 }

@@ -15,7 +15,8 @@ import { ieee370Quality } from '../network/ieee370.js';
 import { passivity, reciprocity } from '../network/quality.js';
 import { CLASSES, classOf } from '../classes/registry.js';
 import { buildPlots } from '../plots/model.js';
-import { renderPlotAnywhere } from '../plots/pool.js';
+import { plotBlocks, type PlotBlock } from './plot-blocks.js';
+import type { ComparisonPage } from './comparison-page.js';
 import { formatSpecError, type SpecError } from '../spec/diagnostics.js';
 import type { NormalizedPart } from '../spec/normalize.js';
 import { cautionsFor } from '../site/cautions.js';
@@ -24,6 +25,8 @@ import { assetPathProblem, loadSettings, type SiteSettings } from '../site/setti
 import { realPath, within } from '../io/output-folder.js';
 import { readYamlFile } from '../io/text-file.js';
 import { evaluatePartFile, type LoadedUnit, type StageTimes } from './part.js';
+
+export type { PlotBlock } from './plot-blocks.js';
 
 export interface ComplianceRow {
   readonly label: string;
@@ -39,21 +42,6 @@ export interface ComplianceRow {
   readonly margin: Cell;
   readonly verdict: 'PASS' | 'FAIL' | 'REPORT';
   readonly units: ReadonlyArray<{ readonly unit: string; readonly worst: Cell; readonly at: Cell; readonly margin: Cell; readonly verdict: 'PASS' | 'FAIL' | 'REPORT' }>;
-}
-
-export interface PlotBlock {
-  readonly id: string;
-  /** 'smith' for a Smith chart, else a figure over frequency. */
-  readonly kind: 'figure' | 'smith';
-  readonly title: string;
-  readonly svg: string;
-  readonly legend: ReadonlyArray<{ readonly label: string; readonly color: string; readonly dash: string }>;
-  /** Limits of one series, drawn as a thick line in its style. */
-  readonly limitLegend: ReadonlyArray<{ readonly label: string; readonly color: string; readonly dash: string }>;
-  /** Distinct units, and measurements (a unit at three temperatures counts three times). */
-  readonly unitCount: number;
-  readonly measurementCount: number;
-  readonly hasLimits: boolean;
 }
 
 export interface MeasurementRow {
@@ -148,6 +136,8 @@ export interface Catalog {
   readonly reportParts: readonly PartPage[];
   readonly byClass: ReadonlyArray<{ readonly partClass: string; readonly title: string; readonly parts: readonly PartPage[] }>;
   readonly failures: readonly PartFailure[];
+  /** The comparisons of candidate parts (content/comparisons/<slug>.yaml). */
+  readonly comparisons: readonly ComparisonPage[];
   readonly generator: string;
 }
 
@@ -255,19 +245,7 @@ export async function buildPartPage(partFile: string, contentRoot: string, slug:
     return { page: null, failure: { slug, file: display, messages: [formatSpecError({ code: 'missing-file', file: display, message: outlineProblem, ...part.outlineAt }, outcome.source)] } };
   }
   const tp = performance.now();
-  const models = buildPlots(part, outcome.units);
-  const svgs = await Promise.all(models.map((m) => renderPlotAnywhere(m, `${slug}-`)));
-  const plots: PlotBlock[] = models.map((m, i) => ({
-    id: m.id,
-    kind: m.kind ?? 'figure',
-    title: m.title,
-    svg: svgs[i],
-    legend: m.items.map((label, j) => ({ label, color: m.colors[j], dash: m.dashes[j].join(' ') })),
-    limitLegend: m.seriesLimits.map((l) => ({ label: l.label, color: l.color, dash: l.dash.join(' ') })),
-    unitCount: m.unitCount,
-    measurementCount: m.measurementCount,
-    hasLimits: m.regions.length > 0,
-  }));
+  const plots = await plotBlocks(buildPlots(part, outcome.units), `${slug}-`);
   if (times) times.plots += performance.now() - tp;
   const lo = largest(outcome.units.map((u) => u.network.freqHz[0]));
   const hi = smallest(outcome.units.map((u) => u.network.freqHz[u.network.freqHz.length - 1]));
@@ -380,7 +358,7 @@ function defaultOperatingBand(part: NormalizedPart): { fromHz: number; toHz: num
   return (limits.find((c) => main.includes(c.figure.id)) ?? limits[0])?.band ?? null;
 }
 
-export function assembleCatalog(site: SiteSettings, parts: readonly PartPage[], failures: readonly PartFailure[], version: string): Catalog {
+export function assembleCatalog(site: SiteSettings, parts: readonly PartPage[], failures: readonly PartFailure[], version: string, comparisons: readonly ComparisonPage[] = []): Catalog {
   const present = new Set(parts.map((p) => p.partClass));
   const order = [...site.classOrder, ...CLASSES.filter((c) => !site.classOrder.includes(c))].filter((c) => present.has(c));
   return {
@@ -389,6 +367,7 @@ export function assembleCatalog(site: SiteSettings, parts: readonly PartPage[], 
     reportParts: site.reports ? parts : [],
     byClass: order.map((c) => ({ partClass: c, title: classOf(c).title, parts: parts.filter((p) => p.partClass === c) })),
     failures,
+    comparisons,
     version,
     generator: `scatterbook ${version}`,
   };

@@ -48,51 +48,77 @@ export function isInside(root: string, target: string): boolean {
   return within(realPath(root), realPath(target));
 }
 
+/** A measurement file, checked as every build checks it: inside the content folder, a regular file, a readable Touchstone file. */
+export function readMeasurementFile(
+  file: string,
+  base: string,
+  contentRoot: string,
+  /** How messages name the file, e.g. measurement file "data/sn1.s2p" of unit SN1. */
+  what: string,
+  where: { readonly file: string; readonly line: number; readonly column: number },
+): { ok: true; path: string; value: NonNullable<ReturnType<typeof readTouchstoneFile>['value']>; bytes: number; sha256: string } | { ok: false; errors: SpecError[] } {
+  const path = resolve(base, file);
+  const at = { file: where.file, line: where.line, column: where.column };
+  if (isAbsolute(file) || !isInside(contentRoot, path)) {
+    return { ok: false, errors: [{ code: 'path-outside', ...at, message: `${what} lies outside the content folder ${relative(process.cwd(), contentRoot) || '.'}; files must stay inside it` }] };
+  }
+  let problem: string | null;
+  try {
+    problem = notAFile(statSync(path));
+  } catch {
+    return { ok: false, errors: [{ code: 'missing-file', ...at, message: `${what} does not exist (looked for ${relative(process.cwd(), path)})` }] };
+  }
+  if (problem) return { ok: false, errors: [{ code: 'missing-file', ...at, message: `${what} ${problem} (${relative(process.cwd(), path)})` }] };
+  const r = readTouchstoneFile(path);
+  if (!r.value) {
+    const fileLabel = relative(process.cwd(), path);
+    return { ok: false, errors: r.errors.map((e) => ({ code: 'touchstone' as const, file: fileLabel, line: e.line, column: e.column ?? (e.line ? 1 : 0), message: e.message })) };
+  }
+  return { ok: true, path, value: r.value, bytes: r.bytes, sha256: r.sha256 };
+}
+
+export interface LoadedPartFile {
+  readonly source: string;
+  readonly part: NormalizedPart | null;
+  readonly units: readonly LoadedUnit[];
+  readonly errors: readonly SpecError[];
+}
+
 /**
+ * A part file and its measured units, read and checked (not evaluated).
  * @param partFile  the part.yaml path
  * @param contentRoot  measurement files must stay inside this folder (a build's content folder;
  *   the part file's own folder for a standalone `figures`)
  * @param displayName  how messages name the part file
  */
-export async function evaluatePartFile(partFile: string, contentRoot: string, displayName = partFile, times?: StageTimes): Promise<PartOutcome> {
-  const t0 = performance.now();
+export async function loadPartFile(partFile: string, contentRoot: string, displayName = partFile): Promise<LoadedPartFile> {
   const read = readYamlFile(partFile, displayName);
-  if (!read.ok) return { source: '', part: null, units: [], result: null, errors: [read.error] };
+  if (!read.ok) return { source: '', part: null, units: [], errors: [read.error] };
   const source = read.text;
   let loaded = loadPartText(source, displayName);
   // custom figures need the expression compiler (mathjs), loaded only for the parts that have them
   if (loaded.needsCompiler) loaded = loadPartText(source, displayName, await (compiler ??= loadExpressionCompiler()));
-  if (!loaded.value) return { source, part: null, units: [], result: null, errors: loaded.errors };
+  if (!loaded.value) return { source, part: null, units: [], errors: loaded.errors };
   const part = loaded.value;
   const base = dirname(partFile);
   const errors: SpecError[] = [];
   const units: LoadedUnit[] = [];
   for (const m of part.measurements) {
-    const path = resolve(base, m.file);
-    if (isAbsolute(m.file) || !isInside(contentRoot, path)) {
-      errors.push({ code: 'path-outside', file: displayName, ...m.fileAt, message: `measurement file "${m.file}" of unit ${m.unit} lies outside the content folder ${relative(process.cwd(), contentRoot) || '.'}; files must stay inside it` });
+    const r = readMeasurementFile(m.file, base, contentRoot, `measurement file "${m.file}" of unit ${m.unit}`, { file: displayName, ...m.fileAt });
+    if (!r.ok) {
+      errors.push(...r.errors);
       continue;
     }
-    let what: string | null;
-    try {
-      what = notAFile(statSync(path));
-    } catch {
-      errors.push({ code: 'missing-file', file: displayName, ...m.fileAt, message: `measurement file "${m.file}" of unit ${m.unit} does not exist (looked for ${relative(process.cwd(), path)})` });
-      continue;
-    }
-    if (what) {
-      errors.push({ code: 'missing-file', file: displayName, ...m.fileAt, message: `measurement file "${m.file}" of unit ${m.unit} ${what} (${relative(process.cwd(), path)})` });
-      continue;
-    }
-    const r = readTouchstoneFile(path);
-    if (!r.value) {
-      const fileLabel = relative(process.cwd(), path);
-      for (const e of r.errors) errors.push({ code: 'touchstone', file: fileLabel, line: e.line, column: e.column ?? (e.line ? 1 : 0), message: e.message });
-      continue;
-    }
-    units.push({ unit: m.label, serial: m.unit, file: m.file, network: r.value.network, noise: r.value.noise, mixedModeOrder: r.value.info.mixedModeOrder, conditions: m.conditions, fileAt: m.fileAt, data: r.value, path, bytes: r.bytes, sha256: r.sha256 });
+    units.push({ unit: m.label, serial: m.unit, file: m.file, network: r.value.network, noise: r.value.noise, mixedModeOrder: r.value.info.mixedModeOrder, conditions: m.conditions, fileAt: m.fileAt, data: r.value, path: r.path, bytes: r.bytes, sha256: r.sha256 });
   }
-  if (errors.length) return { source, part, units, result: null, errors };
+  return { source, part, units, errors };
+}
+
+/** loadPartFile, then the part's figures. */
+export async function evaluatePartFile(partFile: string, contentRoot: string, displayName = partFile, times?: StageTimes): Promise<PartOutcome> {
+  const t0 = performance.now();
+  const { source, part, units, errors } = await loadPartFile(partFile, contentRoot, displayName);
+  if (!part || errors.length) return { source, part, units, result: null, errors };
   const t1 = performance.now();
   const evaluated = evaluatePart(part, units);
   if (times) {

@@ -11,11 +11,11 @@ import { buildSmith } from './smith.js';
 /** The plot name of a Smith chart in `plots` and `extra-plots` (it is a plot, not a figure). */
 export const SMITH = 'smith';
 import { FIGURES } from '../figures/registry.js';
-import type { FigureContext, FigureDef, Item } from '../figures/types.js';
+import type { FigureDef, Item } from '../figures/types.js';
 import { frequencyUnitFor } from '../format/units.js';
 import { interpolateAt as valueAt } from '../network/interpolate.js';
 import { largest, median as medianOf, smallest } from '../evaluate/stats.js';
-import { itemOnNetwork } from '../evaluate/mixed.js';
+import { figureTrace } from '../evaluate/trace.js';
 import type { NormalizedCheck, NormalizedPart } from '../spec/normalize.js';
 import { parameterName, parseParameter, type SParameter } from '../spec/parameter.js';
 import { classOf, DOWNWARD, type PlotDef } from '../classes/registry.js';
@@ -97,7 +97,7 @@ interface Display {
   readonly label: string;
 }
 
-function valueDisplay(unit: string, values: number[]): Display {
+export function valueDisplay(unit: string, values: number[]): Display {
   if (unit === 's') {
     const m = largest(values.map(Math.abs).filter(Number.isFinite).concat(0));
     return m < 1e-9 ? { scale: 1e12, label: 'ps' } : { scale: 1e9, label: 'ns' };
@@ -136,11 +136,11 @@ function genericPlots(part: NormalizedPart): PlotDef[] {
   return out;
 }
 
-function figureFor(part: NormalizedPart, id: string): FigureDef | undefined {
+export function figureFor(part: NormalizedPart, id: string): FigureDef | undefined {
   return FIGURES.get(id) ?? part.checks.find((c) => c.figure.id === id)?.figure;
 }
 
-function itemsFor(def: PlotDef, fig: FigureDef, matching: readonly NormalizedCheck[], ports: number): Item[] {
+export function itemsFor(def: PlotDef, fig: FigureDef, matching: readonly NormalizedCheck[], ports: number): Item[] {
   if (fig.operands === 'port-pair') {
     const [a, b] = def.ports ?? [1, 2];
     if (Math.max(a, b) > ports) return [];
@@ -160,7 +160,7 @@ function itemsFor(def: PlotDef, fig: FigureDef, matching: readonly NormalizedChe
   return [...unique.values()].filter((i) => i.params.every((p) => p.mode !== undefined || (p.to <= ports && p.from <= ports)));
 }
 
-function rangeFor(def: PlotDef, part: NormalizedPart, matching: readonly NormalizedCheck[], lo: number, hi: number): [number, number] | null {
+export function rangeFor(def: PlotDef, part: NormalizedPart, matching: readonly NormalizedCheck[], lo: number, hi: number): [number, number] | null {
   if (def.range === 'all') return [lo, hi];
   if (typeof def.range === 'object') {
     const b = part.bands.get(def.range.band);
@@ -216,31 +216,33 @@ function conditionGroups(units: readonly UnitData[]): Array<{ label: string; con
   return all.length > 1 ? all : [{ label: '', conditions: {}, units: [...units] }];
 }
 
-function buildOne(part: NormalizedPart, units: readonly UnitData[], def: PlotDef, fig: FigureDef, items: readonly Item[], matching: readonly NormalizedCheck[], range: [number, number], index: number): PlotModel | null {
+/** Series groups given by the caller (a comparison's candidates), each in a colour and dash of its own, named by its label alone. */
+export interface OwnGroups {
+  readonly groups: ReadonlyArray<{ readonly label: string; readonly units: readonly UnitData[] }>;
+}
+
+/** Colour and dash of the i-th of several groups drawn in styles of their own: 16 distinct pairs before any repeats. */
+export function groupStyle(i: number): { color: string; dash: readonly number[] } {
+  return { color: PALETTE[i % PALETTE.length], dash: DASHES[(i + Math.floor(i / PALETTE.length)) % DASHES.length] };
+}
+
+export function buildOne(part: NormalizedPart, units: readonly UnitData[], def: PlotDef, fig: FigureDef, items: readonly Item[], matching: readonly NormalizedCheck[], range: [number, number], index: number, own?: OwnGroups): PlotModel | null {
   const [x0, x1] = range;
   const fu = frequencyUnitFor(x1);
   const nominal = matching.find((c) => c.figure.id === fig.id && c.nominal !== null)?.nominal ?? null;
-  const groups = conditionGroups(units);
+  const groups = own ? own.groups.map((g) => ({ label: g.label, conditions: {}, units: [...g.units] })) : conditionGroups(units);
   // a series: one parameter over the units of one condition group (colour by condition where there are several, dash by parameter)
   const series = groups.filter((g) => fig.grid !== 'noise' || g.units.some((u) => u.noise)).flatMap((g, gi) =>
     items.map((item, ii) => ({
-      label: g.label ? `${item.label} at ${g.label}` : item.label,
+      label: own ? g.label : g.label ? `${item.label} at ${g.label}` : item.label,
       item,
       group: g,
-      color: PALETTE[(groups.length > 1 ? gi : ii) % PALETTE.length],
-      dash: DASHES[ii % DASHES.length],
-      data: g.units.filter((u) => fig.grid !== 'noise' || u.noise).map((u) => {
-        const ctx: FigureContext = {
-          network: u.network,
-          part: { partClass: part.partClass, ways: part.ways, phaseSplitDeg: part.phaseSplitDeg },
-          aperture: matching.find((c) => c.figure.id === fig.id)?.aperture ?? 1,
-          levelDb: 3,
-          nominal,
-          band: { fromHz: x0, toHz: x1 },
-        };
-        const on = itemOnNetwork(u.network, part.mixedModePairs, item, u.mixedModeOrder);
-        const freq = fig.grid === 'noise' && u.noise ? u.noise.freqHz : u.network.freqHz;
-        return { unit: u.unit, freq, values: (fig.perPoint as NonNullable<FigureDef['perPoint']>)({ ...ctx, network: on.network, noise: u.noise ?? null }, on.item) };
+      color: own ? groupStyle(gi).color : PALETTE[(groups.length > 1 ? gi : ii) % PALETTE.length],
+      dash: own ? groupStyle(gi).dash : DASHES[ii % DASHES.length],
+      data: g.units.flatMap((u) => {
+        const aperture = matching.find((c) => c.figure.id === fig.id)?.aperture ?? 1;
+        const t = figureTrace(part, fig, item, u, { aperture, nominal, band: { fromHz: x0, toHz: x1 } });
+        return t ? [{ unit: u.unit, freq: t.freqHz, values: t.values }] : [];
       }),
     })),
   );
@@ -260,7 +262,8 @@ function buildOne(part: NormalizedPart, units: readonly UnitData[], def: PlotDef
     const mf: number[] = [], mv: number[] = [], lo: number[] = [], hi: number[] = [];
     ref.freq.forEach((f) => {
       if (f < x0 || f > x1) return;
-      const vals = se.data.map((d) => valueAt(d.freq, d.values, f)).filter(Number.isFinite);
+      // a unit whose grid does not reach f is left out there, never extrapolated
+      const vals = se.data.filter((d) => f >= d.freq[0] && f <= d.freq[d.freq.length - 1]).map((d) => valueAt(d.freq, d.values, f)).filter(Number.isFinite);
       if (!vals.length) return;
       mf.push(f);
       mv.push(medianOf(vals));
@@ -268,7 +271,7 @@ function buildOne(part: NormalizedPart, units: readonly UnitData[], def: PlotDef
       hi.push(largest(vals));
     });
     for (const [f, v] of thin(mf, mv, x0, x1)) med.push({ x: f / fu.scale, y: v * disp.scale, item: se.label, trace: `median ${se.label}` });
-    if (units.length > 1) {
+    if (se.data.length > 1) {
       // the spread keeps each column's lowest low and highest high, each at its own point, the other edge interpolated there
       const fa = Float64Array.from(mf), la = Float64Array.from(lo), ha = Float64Array.from(hi);
       const points = new Map<number, BandPoint>();

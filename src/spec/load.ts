@@ -4,7 +4,7 @@
  * (validate.ts) → normalization (normalize.ts). All errors of a file come back
  * at once, each with its line and column.
  */
-import { LineCounter, parseDocument } from 'yaml';
+import { LineCounter, parseDocument, type Document } from 'yaml';
 import type { ExpressionCompiler } from '../figures/expression.js';
 import type { SpecError } from './diagnostics.js';
 import { normalizePart, type NormalizedPart } from './normalize.js';
@@ -19,19 +19,21 @@ export interface LoadResult {
 }
 
 
-export function loadPartText(text: string, file: string, compile?: ExpressionCompiler): LoadResult {
+/** YAML 1.2 text → its document and line index, or the syntax errors (each positioned). */
+export function parseYaml(text: string, file: string): { doc: Document.Parsed; lines: LineCounter; errors: SpecError[] } {
   const lines = new LineCounter();
   const doc = parseDocument(text, { version: '1.2', lineCounter: lines, prettyErrors: false, uniqueKeys: true });
-  if (doc.errors.length) {
-    return {
-      value: null,
-      errors: doc.errors.map((e) => {
-        const p = e.linePos?.[0] ?? lines.linePos(e.pos[0]);
-        const message = e.code === 'DUPLICATE_KEY' ? 'a key is given twice in the same mapping; give each key once' : `YAML syntax: ${e.message.split(' at line')[0]}`;
-        return { code: 'yaml-syntax' as const, file, message, line: p.line, column: p.col };
-      }),
-    };
-  }
+  const errors = doc.errors.map((e): SpecError => {
+    const p = e.linePos?.[0] ?? lines.linePos(e.pos[0]);
+    const message = e.code === 'DUPLICATE_KEY' ? 'a key is given twice in the same mapping; give each key once' : `YAML syntax: ${e.message.split(' at line')[0]}`;
+    return { code: 'yaml-syntax', file, message, line: p.line, column: p.col };
+  });
+  return { doc, lines, errors };
+}
+
+export function loadPartText(text: string, file: string, compile?: ExpressionCompiler): LoadResult {
+  const { doc, lines, errors: syntax } = parseYaml(text, file);
+  if (syntax.length) return { value: null, errors: syntax };
   if (doc.contents === null) {
     return { value: null, errors: [{ code: 'missing-key', file, message: 'the part file is empty; it needs at least part, class and measurements', line: 0, column: 0 }] };
   }

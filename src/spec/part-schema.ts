@@ -41,7 +41,7 @@ const figureFields: Record<string, Field> = {
   label: str('a name for this row of the tables, replacing the figure name'),
 };
 
-const limitFields: Record<string, Field> = {
+export const limitFields: Record<string, Field> = {
   ...figureFields,
   max: { t: 'quantity', description: 'the largest value allowed (with the figure\'s unit)' },
   min: { t: 'quantity', description: 'the smallest value allowed' },
@@ -59,6 +59,21 @@ function plotFields(): Record<string, Field> {
     title: str('the plot\'s title'),
   };
 }
+
+/** Named frequency bands (part files and comparison files). */
+export const BANDS: Schema = {
+  t: 'map',
+  keys: 'name',
+  description: 'named frequency bands',
+  value: {
+    t: 'object',
+    description: 'a band from one frequency to another',
+    fields: {
+      from: { t: 'quantity', kinds: ['frequency'], description: 'lower edge, with its unit', required: true },
+      to: { t: 'quantity', kinds: ['frequency'], description: 'upper edge, with its unit', required: true },
+    },
+  },
+};
 
 export const PART_SCHEMA: Schema = {
   t: 'object',
@@ -136,19 +151,7 @@ export const PART_SCHEMA: Schema = {
         },
       },
     },
-    bands: {
-      t: 'map',
-      keys: 'name',
-      description: 'named frequency bands',
-      value: {
-        t: 'object',
-        description: 'a band from one frequency to another',
-        fields: {
-          from: { t: 'quantity', kinds: ['frequency'], description: 'lower edge, with its unit', required: true },
-          to: { t: 'quantity', kinds: ['frequency'], description: 'upper edge, with its unit', required: true },
-        },
-      },
-    },
+    bands: BANDS,
     limits: { t: 'array', items: { t: 'object', fields: limitFields, description: 'a figure over a band and the limit it must meet' }, description: 'the limits the datasheet promises, in the order of its compliance table' },
     report: { t: 'array', items: { t: 'object', fields: figureFields, description: 'a figure to report without a limit' }, description: 'figures reported without a limit (their worst follows the figure\'s bad direction)' },
     'custom-figures': {

@@ -55,7 +55,7 @@ const describe = (s: Schema): string => {
   }
 };
 
-export function validate(root: Node | null, schema: Schema, file: string, lines: LineCounter, resolveAlias?: (alias: Alias) => Node | undefined): Validated {
+export function validate(root: Node | null, schema: Schema, file: string, lines: LineCounter, resolveAlias?: (alias: Alias) => Node | undefined, rootLabel = 'the part file'): Validated {
   const errors: SpecError[] = [];
   const positions = new Map<string, Position>();
   const posOf = (node: Node | null | undefined): Position => {
@@ -210,6 +210,6 @@ export function validate(root: Node | null, schema: Schema, file: string, lines:
     }
   }
 
-  const value = walk(root, schema, '', 'the part file') ?? null;
+  const value = walk(root, schema, '', rootLabel) ?? null;
   return { value, errors, positions };
 }

@@ -48,7 +48,7 @@ describe.skipIf(!haveBrowser || !havePoppler)('PDF datasheets', () => {
   it('the build prints one PDF per part and the pages link them', () => {
     expect(build.stderr.split('\n').filter((l) => l && !l.startsWith('warning: VT-PAD-10 fails'))).toEqual([]); // the demo's one failing unit is warned about
     expect(build.status).toBe(0);
-    expect(build.stdout).toMatch(/built 8 parts, 16 PDFs \([\d.]+ per second after the browser started\)/);
+    expect(build.stdout).toMatch(/built 8 parts and 1 comparison, 17 PDFs \([\d.]+ per second after the browser started\)/);
     const index = readFileSync(join(dir, 'site/index.html'), 'utf8');
     for (const slug of slugs) expect(index).toContain(`href="parts/${slug}/${slug.toUpperCase()}.pdf"`);
     for (const slug of slugs) expect(existsSync(join(dir, 'site/parts', slug, `${slug.toUpperCase()}-report.pdf`)), `${slug} report PDF`).toBe(true);
@@ -136,6 +136,34 @@ describe.skipIf(!haveBrowser || !havePoppler)('PDF datasheets', () => {
       }
     });
   }
+
+  it('the comparison as a PDF: its metadata, the title on every page, every worst value and rank of compare --json, text inside the page (poppler)', () => {
+    const pdf = join(dir, 'site/comparisons/ism-filter-shortlist/ism-filter-shortlist-comparison.pdf');
+    expect(existsSync(pdf)).toBe(true);
+    const meta = info(pdf);
+    expect(meta.Title).toBe('Filter shortlist for a 2.4 GHz ISM front end (comparison)');
+    expect(meta.Keywords).toContain('Orrin OR-BP24');
+    const pages = Number(meta.Pages);
+    expect(pages).toBeGreaterThanOrEqual(2);
+    const text = execFileSync('pdftotext', ['-layout', pdf, '-'], { encoding: 'utf8' });
+    const perPage = text.split('\f').filter((t) => t.trim());
+    expect(perPage.length).toBe(pages);
+    for (const t of perPage) expect(t).toContain('Filter shortlist for a 2.4 GHz ISM front end');
+    const json = JSON.parse(run(['compare', join(ROOT, 'content/comparisons/ism-filter-shortlist.yaml'), '--json']).stdout);
+    const flat = text.replace(/\s+/g, ' ');
+    for (const c of json.candidates) {
+      expect(flat).toContain(c.label);
+      for (const r of c.results) expect(flat, `${c.label} ${r.figure} worst`).toContain(formatValueAt(r.worst, r.unit));
+    }
+    expect(flat).toMatch(/Rank 2 1 3 — not ranked/);
+    // nothing drawn outside the page: pdftotext's bounding boxes all inside the media box
+    const boxes = execFileSync('pdftotext', ['-bbox', pdf, '-'], { encoding: 'utf8' });
+    const page = /<page width="([\d.]+)" height="([\d.]+)"/.exec(boxes) as RegExpExecArray;
+    for (const m of boxes.matchAll(/xMax="([\d.]+)" yMax="([\d.]+)"/g)) {
+      expect(Number(m[1])).toBeLessThanOrEqual(Number(page[1]));
+      expect(Number(m[2])).toBeLessThanOrEqual(Number(page[2]));
+    }
+  });
 
   it('a page asking for the network or a file outside the build folder: refused, reported, and the PDF still prints', () => {
     const content = join(dir, 'leaky');

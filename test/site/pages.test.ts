@@ -65,12 +65,54 @@ async function open(path: string): Promise<{ page: import('puppeteer-core').Page
 describe.skipIf(!haveBrowser)('the demo site in Chromium', () => {
   it('the catalog index lists every part, grouped by class, with a link that works', async () => {
     const { page, report } = await open('index.html');
-    const rows = await page.$$eval('.catalog-table tbody tr th a', (as) => as.map((a) => [a.textContent, a.getAttribute('href')]));
+    const rows = await page.$$eval('.class-group:not(.comparisons) .catalog-table tbody tr th a', (as) => as.map((a) => [a.textContent, a.getAttribute('href')]));
     expect(rows.length).toBe(slugs.length);
-    const groups = await page.$$eval('.class-group h2', (hs) => hs.map((h) => h.textContent));
+    const groups = await page.$$eval('.class-group:not(.comparisons) h2', (hs) => hs.map((h) => h.textContent));
     expect(groups.length).toBeGreaterThanOrEqual(8);
-    await page.click('.catalog-table tbody tr th a');
+    await page.click('.class-group:not(.comparisons) .catalog-table tbody tr th a');
     await page.waitForSelector('#part-number');
+    expect(report.errors).toEqual([]);
+    expect(report.failed).toEqual([]);
+    await page.close();
+  });
+
+  it('the comparison page: listed on the index, no console errors, its embedded JSON is compare --json, every cell and rank equals it, one style per candidate in plots and table, the gap said', async () => {
+    const index = await open('index.html');
+    const link = await index.page.$eval('.comparisons .catalog-table tbody tr th a', (a) => a.getAttribute('href'));
+    expect(link).toBe('comparisons/ism-filter-shortlist/index.html');
+    await index.page.close();
+    const { page, report } = await open('comparisons/ism-filter-shortlist/index.html');
+    const cli = JSON.parse(spawnSync(process.execPath, [BIN, 'compare', join(ROOT, 'content/comparisons/ism-filter-shortlist.yaml'), '--json'], { encoding: 'utf8' }).stdout);
+    const embedded = JSON.parse(await page.$eval('#comparison-json', (e) => e.textContent ?? ''));
+    expect(embedded).toEqual(cli);
+    const cells = await page.$$eval('.side-by-side tbody tr', (trs) => trs.map((tr) => [...tr.querySelectorAll('td.cell')].map((td) => (td.getAttribute('data-value') === null ? null : Number(td.getAttribute('data-value'))))));
+    cli.candidates.forEach((c: { coverage: string; results: Array<{ worst: number }> }, k: number) => {
+      cells.forEach((row, i) => {
+        if (c.coverage === 'full') expect(row[k], `candidate ${k} check ${i}`).toBe(c.results[i].worst);
+        else expect(row[k]).toBe(null);
+      });
+    });
+    const ranks = await page.$$eval('.rank-row td[data-candidate]', (tds) => tds.map((td) => td.textContent?.trim() ?? ''));
+    expect(ranks.map((r) => (r.startsWith('—') ? null : Number(r)))).toEqual(cli.candidates.map((c: { rank: number | null }) => c.rank));
+    // a failing cell says so in words, not by colour alone
+    const failing = await page.$$eval('td.cell.failing', (tds) => tds.map((td) => td.textContent ?? ''));
+    expect(failing.length).toBeGreaterThan(0);
+    for (const t of failing) expect(t).toContain('FAIL');
+    // every plot: one legend key per candidate, the same colour and dash as the table's header
+    const heads = await page.$$eval('.side-by-side thead th[data-candidate] line', (ls) => ls.map((l) => `${l.getAttribute('stroke')} ${l.getAttribute('stroke-dasharray')}`));
+    expect(new Set(heads).size).toBe(cli.candidates.length);
+    const legends = await page.$$eval('.plots figure.plot', (fs) => fs.map((f) => [...f.querySelectorAll('figcaption .key line')].map((l) => `${l.getAttribute('stroke')} ${l.getAttribute('stroke-dasharray')}`)));
+    expect(legends.length).toBeGreaterThanOrEqual(4);
+    for (const l of legends) expect(l.slice(0, cli.candidates.length)).toEqual(heads);
+    // each candidate's median drawn (one line each), the requirement's regions shaded
+    const plots = await page.$$eval('.plots figure.plot > svg', (ss) => ss.map((s) => ({ median: s.querySelectorAll('.median_traces_marks path').length, regions: s.querySelectorAll('.limit_regions_marks path').length })));
+    for (const p of plots) {
+      expect(p.median).toBeGreaterThanOrEqual(2);
+      expect(p.regions).toBeGreaterThan(0);
+    }
+    const gap = (await page.$eval('.gap-note', (p) => p.textContent ?? '')).replace(/\u00a0|\u202f/g, ' ');
+    expect(gap).toContain('data cover 2.4 GHz to 2.47 GHz of ism');
+    expect(await page.$$eval('.differences figure.plot', (fs) => fs.length)).toBeGreaterThanOrEqual(3);
     expect(report.errors).toEqual([]);
     expect(report.failed).toEqual([]);
     await page.close();
