@@ -14,8 +14,8 @@ export const COMMANDS: ReadonlyArray<{ readonly name: string; readonly summary: 
   { name: 'serve', summary: 'preview the site on this machine, rebuilding when anything in the content folder changes', load: async () => (await import('./serve-command.js')).serveCommand },
   { name: 'read', summary: 'show what a Touchstone file holds (ports, points, references, passivity, reciprocity)', load: async () => (await import('./read-command.js')).readCommand },
   { name: 'figures', summary: 'compute a part\'s figures over its measured units and check them against its limits', load: async () => (await import('./figures-command.js')).figuresCommand },
-  { name: 'compare', summary: 'compare candidate parts\' Touchstone files over a band against a requirement', load: async () => (await import('./compare-command.js')).compareCommand },
-  { name: 'schema', summary: 'print the JSON Schema of part files (for editors)', load: async () => (await import('./schema-command.js')).schemaCommand },
+  { name: 'compare', summary: 'compare candidate parts side by side: a comparison file, or Touchstone files over a band', load: async () => (await import('./compare-command.js')).compareCommand },
+  { name: 'schema', summary: 'print the JSON Schema of part files or comparison files (for editors)', load: async () => (await import('./schema-command.js')).schemaCommand },
 ];
 
 export function usage(): string {

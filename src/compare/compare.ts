@@ -56,6 +56,7 @@ export interface CandidateResult {
   readonly result: PartResult | null;
   /** The result of each of the requirement's checks, in its order; null where the candidate's data do not cover the check's band. */
   readonly byCheck: ReadonlyArray<CheckResult | null>;
+  /** Its evaluation errors, as the figure engine words them (candidateErrors names the candidates). */
   readonly errors: readonly SpecError[];
   readonly warnings: readonly SpecWarning[];
   readonly pass: boolean;
@@ -126,12 +127,26 @@ export function compareCandidates(requirement: NormalizedPart, candidates: reado
       .flatMap((r, i) => (r && r.kind === 'limit' && r.margin !== null ? [{ margin: r.margin, key: r.margin * rankingScale(r.unit), check: i, label: r.label, on: r.on, band: r.band, unit: r.unit }] : []))
       .sort((a, b) => a.key - b.key || a.check - b.check);
     const coverage = gaps.length ? 'partial' : 'full';
-    const errors = evaluated.errors.map((e) => ({ ...e, message: `candidate "${c.label}": ${e.message}`, ...(c.at && e.line === 0 ? c.at : {}) }));
+    const errors = evaluated.errors.map((e) => ({ ...e, ...(c.at && e.line === 0 ? c.at : {}) }));
     return { label: c.label, coverage, gaps, result, byCheck, errors, warnings: result?.warnings ?? [], pass: coverage === 'full' && result !== null && result.pass, margins: tightest.map((t) => t.key), tightest, units };
   });
   const ranked = out.map((c, i) => ({ c, i })).filter((x) => x.c.coverage === 'full' && x.c.result).sort((a, b) => byMargins(a.c.margins, b.c.margins) || a.i - b.i);
   const rankOf = new Map(ranked.map((x, k) => [x.i, k + 1]));
   return out.map((c, i) => ({ ...c, rank: rankOf.get(i) ?? null }));
+}
+
+/** The candidates' evaluation errors, each said once: the same mistake of several candidates names them all. */
+export function candidateErrors(results: readonly CandidateResult[]): SpecError[] {
+  const merged = new Map<string, { error: SpecError; labels: string[] }>();
+  for (const c of results) {
+    for (const e of c.errors) {
+      const key = `${e.file}\u0000${e.line}\u0000${e.column}\u0000${e.message}`;
+      const m = merged.get(key);
+      if (m) m.labels.push(c.label);
+      else merged.set(key, { error: e, labels: [c.label] });
+    }
+  }
+  return [...merged.values()].map(({ error, labels }) => ({ ...error, message: `${labels.length === 1 ? 'candidate' : 'candidates'} ${labels.map((l) => `"${l}"`).join(', ')}: ${error.message}` }));
 }
 
 /** The bands of the requirement for which no candidate has any data at all: nothing can be said there. */

@@ -6,7 +6,7 @@
  */
 import { existsSync, readdirSync, statSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
-import { bandsNoneCover, compareCandidates, type CandidateResult } from '../compare/compare.js';
+import { bandsNoneCover, candidateErrors, compareCandidates, type CandidateResult } from '../compare/compare.js';
 import { baselineDifferences, rankReasons, type CandidateDifference } from '../compare/explain.js';
 import { readYamlFile, notAFile } from '../io/text-file.js';
 import { loadComparisonText, type CandidateSpec, type NormalizedComparison } from '../spec/comparison.js';
@@ -83,7 +83,7 @@ export async function evaluateComparisonFile(file: string, contentRoot: string, 
     candidates.map((c) => ({ label: c.spec.label, units: c.units, portMap: c.spec.portMap, at: c.spec.at })),
     comparison.referenceOhms,
   );
-  const evaluationErrors = results.flatMap((r) => r.errors);
+  const evaluationErrors = candidateErrors(results);
   for (const band of bandsNoneCover(comparison.requirement, results)) {
     evaluationErrors.push({ code: 'band-outside-data', file: display, ...band.at, message: `no candidate has any data in band ${band.name}; a comparison there would be all extrapolation: measure it, or narrow the band` });
   }

@@ -9,7 +9,8 @@ import { join } from 'node:path';
 import { Ajv2020 } from 'ajv/dist/2020.js';
 import { parse } from 'yaml';
 import { describe, expect, it } from 'vitest';
-import { partJsonSchema, partJsonSchemaText } from '../../src/spec/json-schema.js';
+import { comparisonJsonSchema, comparisonJsonSchemaText, partJsonSchema, partJsonSchemaText } from '../../src/spec/json-schema.js';
+import { loadComparisonText } from '../../src/spec/comparison.js';
 import { loadPartText } from '../../src/spec/load.js';
 
 const CONTENT = join(import.meta.dirname, '../../content');
@@ -50,6 +51,40 @@ describe('the part file schema', () => {
     for (const text of broken) {
       expect(check(parse(text, { version: '1.2' }))).toBe(false);
       expect(loadPartText(text, 'x.yaml').errors.length).toBeGreaterThan(0);
+    }
+  });
+});
+
+describe('the comparison file schema', () => {
+  const ajv = new Ajv2020({ allErrors: true, strict: false });
+  const check = ajv.compile(comparisonJsonSchema());
+  const files = readdirSync(join(CONTENT, 'comparisons')).filter((f) => f.endsWith('.yaml')).map((f) => join(CONTENT, 'comparisons', f));
+
+  it('content/comparison.schema.json is the generated schema (npm run schema)', () => {
+    expect(readFileSync(join(CONTENT, 'comparison.schema.json'), 'utf8')).toBe(comparisonJsonSchemaText());
+  });
+
+  it('every demo comparison passes Ajv and our validator', () => {
+    expect(files.length).toBeGreaterThan(0);
+    for (const f of files) {
+      const text = readFileSync(f, 'utf8');
+      expect(check(parse(text, { version: '1.2' })), `${f}: ${JSON.stringify(check.errors)}`).toBe(true);
+      expect(loadComparisonText(text, f).errors).toEqual([]);
+    }
+  });
+
+  it('Ajv and our validator agree on broken files: unknown keys, a limit key of part files only, a bare frequency, no candidates', () => {
+    const base = readFileSync(files[0], 'utf8');
+    const broken = [
+      base.replace(/^limits:/m, 'limts:'),
+      base.replace(/^baseline:/m, 'base-line:'),
+      base.replace('max: 2.0 dB}', 'max: 2.0 dB, assured-by: every-unit}'),
+      base.replace(/from: 2.70 GHz/, 'from: 2.70'),
+      base.replace(/^candidates:[\s\S]*?^baseline:.*$/m, 'candidates: []'),
+    ];
+    for (const text of broken) {
+      expect(check(parse(text, { version: '1.2' })), text.slice(0, 0)).toBe(false);
+      expect(loadComparisonText(text, 'x.yaml').errors.length).toBeGreaterThan(0);
     }
   });
 });
