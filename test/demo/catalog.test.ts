@@ -42,3 +42,24 @@ describe('demo catalog data', () => {
     });
   }
 });
+
+describe('demo comparison data', () => {
+  it('reproduced byte for byte; one file on another grid, one at 75 Ω with its ports turned round, one short of the band', async () => {
+    const { candidateFiles } = await import('../../src/demo/comparison.js');
+    const files = candidateFiles();
+    expect(files.size).toBeGreaterThanOrEqual(3);
+    const nets = new Map<string, ReturnType<typeof readTouchstone>['value']>();
+    for (const [rel, text] of files) {
+      const committed = readFileSync(join(CONTENT, '../comparisons', rel), 'utf8');
+      expect(text === committed, `comparisons/${rel} differs from the generator's output: run npm run demo:data`).toBe(true);
+      const r = readTouchstone(text, { fileName: rel });
+      expect(r.errors).toEqual([]);
+      expect(passivity(r.value!.network).passive, rel).toBe(true);
+      nets.set(rel, r.value);
+    }
+    const [orrin, tallow, short] = ['data/orrin-or-bp24/unit-a.s2p', 'data/tallowmere-tc-2442f/sn0117.s2p', 'data/tallowmere-tc-2440n/sn0042.s2p'].map((f) => nets.get(f)!.network);
+    expect(orrin.freqHz[1] - orrin.freqHz[0]).toBe(6.25e6);
+    expect(Array.from(tallow.z0)).toEqual([75, 75]);
+    expect(short.freqHz.at(-1)).toBe(2.47e9);
+  });
+});
