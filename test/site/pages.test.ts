@@ -85,7 +85,7 @@ describe.skipIf(!haveBrowser)('the demo site in Chromium', () => {
     const cli = JSON.parse(spawnSync(process.execPath, [BIN, 'compare', join(ROOT, 'content/comparisons/ism-filter-shortlist.yaml'), '--json'], { encoding: 'utf8' }).stdout);
     const embedded = JSON.parse(await page.$eval('#comparison-json', (e) => e.textContent ?? ''));
     expect(embedded).toEqual(cli);
-    const cells = await page.$$eval('.candidates-table tbody tr', (trs) => trs.map((tr) => [...tr.querySelectorAll('td.cell')].map((td) => (td.getAttribute('data-value') === null ? null : Number(td.getAttribute('data-value'))))));
+    const cells = await page.$$eval('.candidates-table tbody tr', (trs) => trs.map((tr) => Array.from(tr.querySelectorAll('td.cell')).map((td) => (td.getAttribute('data-value') === null ? null : Number(td.getAttribute('data-value'))))));
     cli.candidates.forEach((c: { coverage: string; results: Array<{ worst: number }> }, k: number) => {
       cells.forEach((row, i) => {
         if (c.coverage === 'full') expect(row[k], `candidate ${k} check ${i}`).toBe(c.results[i].worst);
@@ -101,7 +101,7 @@ describe.skipIf(!haveBrowser)('the demo site in Chromium', () => {
     // every plot: one legend key per candidate, the same colour and dash as the table's header
     const heads = await page.$$eval('.candidates-table thead th[data-candidate] line', (ls) => ls.map((l) => `${l.getAttribute('stroke')} ${l.getAttribute('stroke-dasharray')}`));
     expect(new Set(heads).size).toBe(cli.candidates.length);
-    const legends = await page.$$eval('.plots figure.plot', (fs) => fs.map((f) => [...f.querySelectorAll('figcaption .key line')].map((l) => `${l.getAttribute('stroke')} ${l.getAttribute('stroke-dasharray')}`)));
+    const legends = await page.$$eval('.plots figure.plot', (fs) => fs.map((f) => Array.from(f.querySelectorAll('figcaption .key line')).map((l) => `${l.getAttribute('stroke')} ${l.getAttribute('stroke-dasharray')}`)));
     expect(legends.length).toBeGreaterThanOrEqual(4);
     for (const l of legends) expect(l.slice(0, cli.candidates.length)).toEqual(heads);
     // each candidate's median drawn (one line each), the requirement's regions shaded
