@@ -12,6 +12,7 @@ import { describeFault } from '../io/fault.js';
 import { outputRefusal, SITE_MARKER, SITE_MARKER_TEXT } from '../io/output-folder.js';
 import { discard, removeDeadBuilds, stagingFolder, swapInto } from '../io/swap.js';
 import { buildCatalog } from '../pipeline/build-catalog.js';
+import { buildManifest, MANIFEST, manifestText } from '../archive/manifest.js';
 import { closePlotPool } from '../plots/pool.js';
 import { writeSite } from '../site/eleventy-run.js';
 import { PACKAGE_ROOT } from '../site/plugin.js';
@@ -153,6 +154,8 @@ async function buildAndPublish(o: BuildOptions, t: Terminal, started: number): P
       const rate = report.printed / Math.max(report.printMs / 1000, 1e-3);
       pdfNote = `, ${report.printed} PDF${report.printed === 1 ? '' : 's'} (${rate.toFixed(1)} per second after the browser started)`;
     }
+    // last: the manifest hashes every file the site holds
+    writeFileSync(join(staging.dir, MANIFEST), manifestText(buildManifest(site, staging.dir, packageVersion())));
     swapInto(staging);
   } catch (e) {
     discard(staging);

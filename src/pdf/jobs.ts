@@ -29,7 +29,7 @@ export function printJobs(catalog: Catalog, root: string, version: string): Prin
     pdf: join(root, 'comparisons', c.slug, comparisonPdfFileName(c.slug)),
     metadata: { title: `${c.title} (comparison)`, subject: `comparison of ${c.candidates.length} candidate parts`, author: catalog.site.vendor, keywords: ['comparison', ...c.candidates.map((x) => x.label)], date: c.date || null, creator: `scatterbook ${version}` },
     header: { left: 'Comparison of candidate parts', right: `${c.title}${c.date ? ` · ${c.date}` : ''}` },
-    footer: `${c.title}`,
+    footer: `${c.title} · build ${c.inputs.fingerprint}`,
   }));
   return [...partJobs(catalog, root, version), ...comparisons];
 }
@@ -46,9 +46,9 @@ function partJobs(catalog: Catalog, root: string, version: string): PrintJob[] {
     });
     // the vendor is named once, at the top of page 1; the running header carries the part
     const header = { left: p.title || p.partClass, right: `${p.part} · revision ${p.revision || '—'}${p.date ? ` · ${p.date}` : ''}` };
-    const sheet: PrintJob = { html: join(root, 'parts', p.slug, 'index.html'), pdf: join(root, 'parts', p.slug, pdfFileName(p.part, p.slug)), metadata: metadata('datasheet'), header, footer: `${p.part} datasheet` };
+    const sheet: PrintJob = { html: join(root, 'parts', p.slug, 'index.html'), pdf: join(root, 'parts', p.slug, pdfFileName(p.part, p.slug)), metadata: metadata('datasheet'), header, footer: `${p.part} datasheet · build ${p.inputs.fingerprint}` };
     if (!p.reportUrl) return [sheet];
-    const report: PrintJob = { html: join(root, 'parts', p.slug, 'report.html'), pdf: join(root, 'parts', p.slug, reportPdfFileName(p.part, p.slug)), metadata: metadata('test report'), header, footer: `${p.part} test report` };
+    const report: PrintJob = { html: join(root, 'parts', p.slug, 'report.html'), pdf: join(root, 'parts', p.slug, reportPdfFileName(p.part, p.slug)), metadata: metadata('test report'), header, footer: `${p.part} test report · build ${p.inputs.fingerprint}` };
     return [sheet, report];
   });
 }

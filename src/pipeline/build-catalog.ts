@@ -67,7 +67,7 @@ export async function buildCatalog(contentRoot: string, options: BuildCatalogOpt
       failures.push({ slug: `comparisons/${slug}`, file: display, messages: outcome.errors.map((e) => formatSpecError(e, e.file === display ? outcome.source : undefined)) });
       continue;
     }
-    comparisons.push(await buildComparisonPage(outcome, slug, contentRoot));
+    comparisons.push(await buildComparisonPage(outcome, slug, contentRoot, file));
   }
   return { catalog: assembleCatalog(settings, pages, failures, options.version, comparisons), settingsErrors: errors, cacheHits: hits };
 }

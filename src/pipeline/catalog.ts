@@ -3,7 +3,8 @@
  * plots (as SVG), measurement provenance and data quality, formatted for the
  * templates, which only place it. Eleventy receives this as global data.
  */
-import { existsSync, readdirSync, realpathSync, statSync } from 'node:fs';
+import { createHash } from 'node:crypto';
+import { existsSync, readdirSync, readFileSync, realpathSync, statSync } from 'node:fs';
 import { basename, join, relative, sep } from 'node:path';
 import type { CheckResult } from '../evaluate/evaluate.js';
 import { figuresJson } from '../evaluate/json.js';
@@ -119,7 +120,25 @@ export interface PartPage {
   readonly warnings: ReadonlyArray<{ readonly where: string; readonly message: string }>;
   /** The JSON of `scatterbook figures --json`, for machine readers and tests. */
   readonly figuresJson: string;
+  /** What the page rests on, for the manifest: the part file and every measurement file, relative to the content folder, with their SHA-256. */
+  readonly inputs: Inputs;
 }
+
+export interface Inputs {
+  readonly spec: { readonly path: string; readonly sha256: string };
+  readonly data: ReadonlyArray<{ readonly unit: string; readonly path: string; readonly sha256: string }>;
+  /** The first 12 hex digits of the SHA-256 of the inputs (fingerprintOf): shown on the documents, it leads to their manifest entry. */
+  readonly fingerprint: string;
+}
+
+/** The SHA-256 of "spec path, sha256" then "data path, sha256" per file, one per line, as 12 hex digits. */
+export function fingerprintOf(spec: Inputs['spec'], data: Inputs['data']): string {
+  const lines = [spec, ...data].map((f) => `${f.path} ${f.sha256}\n`).join('');
+  return createHash('sha256').update(lines).digest('hex').slice(0, 12);
+}
+
+/** A file's place in the content folder, with / between folders. */
+export const contentPath = (contentRoot: string, path: string) => relative(contentRoot, path).split(sep).join('/');
 
 export interface PartFailure {
   readonly slug: string;
@@ -300,8 +319,15 @@ export async function buildPartPage(partFile: string, contentRoot: string, slug:
     warnings: result.warnings.map((w) => ({ where: `${w.file}:${w.line}:${w.column}`, message: w.message })),
     // safe inside <script type="application/json">: no "<" can close the element
     figuresJson: JSON.stringify(figuresJson(result)).replace(/</g, '\\u003c'),
+    inputs: inputsOf(partFile, outcome.units, contentRoot),
   };
   return { page, failure: null };
+}
+
+function inputsOf(specFile: string, units: readonly LoadedUnit[], contentRoot: string): Inputs {
+  const spec = { path: contentPath(contentRoot, specFile), sha256: createHash('sha256').update(readFileSync(specFile)).digest('hex') };
+  const data = units.map((u) => ({ unit: u.unit, path: contentPath(contentRoot, u.path), sha256: u.sha256 }));
+  return { spec, data, fingerprint: fingerprintOf(spec, data) };
 }
 
 /** The part folders of a content folder: parts/<slug>/part.yaml, in name order. */

@@ -14,6 +14,9 @@ import { comparisonPlots, differencePlots } from '../plots/comparison.js';
 import { groupStyle } from '../plots/model.js';
 import type { ComparisonOutcome } from './comparison.js';
 import { plotBlocks, type PlotBlock } from './plot-blocks.js';
+import { contentPath, fingerprintOf, type Inputs } from './catalog.js';
+import { createHash } from 'node:crypto';
+import { readFileSync } from 'node:fs';
 
 export interface ComparisonCell {
   readonly text: string;
@@ -69,12 +72,14 @@ export interface ComparisonPage {
   readonly warnings: ReadonlyArray<{ readonly where: string; readonly message: string }>;
   /** The JSON of `scatterbook compare --json`, for machine readers and tests. */
   readonly comparisonJson: string;
+  /** The comparison file and every candidate's files, for the manifest. */
+  readonly inputs: Inputs;
 }
 
 const ohms = (v: number) => `${trimNumber(v)} Ω`;
 
 /** The page of one evaluated comparison (outcome.errors empty). */
-export async function buildComparisonPage(outcome: ComparisonOutcome, slug: string, contentRoot: string): Promise<ComparisonPage> {
+export async function buildComparisonPage(outcome: ComparisonOutcome, slug: string, contentRoot: string, file: string): Promise<ComparisonPage> {
   const cmp = outcome.comparison as NonNullable<ComparisonOutcome['comparison']>;
   const req = cmp.requirement;
   const results = outcome.results;
@@ -172,5 +177,10 @@ export async function buildComparisonPage(outcome: ComparisonOutcome, slug: stri
     warnings: results.flatMap((c) => c.warnings.map((w) => ({ where: c.label, message: w.message }))),
     // safe inside <script type="application/json">: no "<" can close the element
     comparisonJson: JSON.stringify(comparisonJson(cmp.title, cmp.referenceOhms, results)).replace(/</g, '\\u003c'),
+    inputs: (() => {
+      const spec = { path: contentPath(contentRoot, file), sha256: createHash('sha256').update(readFileSync(file)).digest('hex') };
+      const data = outcome.candidates.flatMap((lc) => lc.units.map((u) => ({ unit: u.unit, path: contentPath(contentRoot, u.path), sha256: u.sha256 })));
+      return { spec, data, fingerprint: fingerprintOf(spec, data) };
+    })(),
   };
 }
