@@ -10,7 +10,7 @@ import { bandRange } from '../format/units.js';
 import { formatValue } from '../format/values.js';
 import type { NormalizedPart } from '../spec/normalize.js';
 import type { CandidateResult, MarginEntry } from './compare.js';
-import { differenceTrace, medianTrace } from './difference.js';
+import { differenceTrace, medianTrace } from '../evaluate/difference.js';
 
 const limitName = (t: MarginEntry) => `${t.label.toLowerCase()} ${t.on.join(', ')} over ${t.band}`;
 const amount = (v: number, unit: string) => formatValue(Math.abs(v), unit);

@@ -12,6 +12,7 @@
  *   when the units are ranked by margin (typicalOf); pass: every unit's
  *   margin ≥ 0.
  * - `when` restricts a check to the units whose conditions match.
+ * - `change` limits bound a figure's change per unit between two stages (change.ts).
  */
 import { FigureUndefined, type FigureContext, type Item } from '../figures/types.js';
 import { formatFrequency } from '../format/units.js';
@@ -19,7 +20,8 @@ import type { Network } from '../network/network.js';
 import type { NoiseParameters } from '../touchstone/normalize.js';
 import type { Position, SpecError, SpecWarning } from '../spec/diagnostics.js';
 import { classOf } from '../classes/registry.js';
-import type { Limit, NormalizedCheck, NormalizedPart } from '../spec/normalize.js';
+import type { Change, Limit, NormalizedCheck, NormalizedPart } from '../spec/normalize.js';
+import { evaluateChange } from './change.js';
 import { parameterName } from '../spec/parameter.js';
 import { bandSet } from './band.js';
 import { itemOnNetwork, orderIndex, pairsOfOrder } from './mixed.js';
@@ -74,6 +76,8 @@ export interface CheckResult {
   readonly margin: number | null;
   readonly pass: boolean | null;
   readonly units: readonly UnitResult[];
+  /** A change limit's two stages (its values are changes per unit), absent otherwise. */
+  readonly change?: Change;
 }
 
 export interface PartResult {
@@ -95,7 +99,7 @@ export function marginOf(limit: Limit, v: number): number {
 }
 
 /** The number that is smallest for the worst value: the margin, or the bad direction without a limit. */
-function scorer(check: NormalizedCheck): (v: number) => number {
+export function scorer(check: NormalizedCheck): (v: number) => number {
   if (check.limit) {
     const limit = check.limit;
     return (v) => marginOf(limit, v);
@@ -198,6 +202,12 @@ export function evaluatePart(part: NormalizedPart, units: readonly UnitData[]): 
   const results: CheckResult[] = [];
   const warnings: SpecWarning[] = [];
   for (const check of part.checks) {
+    if (check.change) {
+      const r = evaluateChange(part, check as NormalizedCheck & { change: Change }, units, scorer(check));
+      if ('error' in r) errors.push(r.error);
+      else results.push(r.value);
+      continue;
+    }
     try {
       results.push(evaluateCheck(part, check, units, warnings));
     } catch (e) {

@@ -37,6 +37,7 @@ export function figuresJson(r: PartResult): object {
       margin: jsonNumber(c.margin),
       pass: c.pass,
       units: c.units.map((u) => ({ unit: u.unit, worst: jsonNumber(u.worst), atHz: u.atHz, margin: jsonNumber(u.margin), pass: u.pass })),
+      ...(c.change ? { change: { from: c.change.from, to: c.change.to } } : {}),
     })),
     warnings: r.warnings.map((w) => ({ code: w.code, file: w.file, line: w.line, column: w.column, message: w.message })),
   };

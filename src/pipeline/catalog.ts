@@ -380,7 +380,7 @@ export function readSettings(contentRoot: string): { settings: SiteSettings; err
 /** The band of the class's main transmission limit (a filter's insertion-loss passband, an amplifier's gain band), else of the first limit. */
 function defaultOperatingBand(part: NormalizedPart): { fromHz: number; toHz: number } | null {
   const main = classOf(part.partClass).transmission;
-  const limits = part.checks.filter((c) => c.kind === 'limit');
+  const limits = part.checks.filter((c) => c.kind === 'limit' && !c.change);
   return (limits.find((c) => main.includes(c.figure.id)) ?? limits[0])?.band ?? null;
 }
 

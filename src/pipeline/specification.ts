@@ -86,8 +86,8 @@ function specRow(r: CheckResult, when: Readonly<Record<string, string>> | null, 
 export function specification(part: NormalizedPart, results: readonly CheckResult[], reference: string, resolutionHz: number | null = null): SpecGroup[] {
   const order = classOf(part.partClass).headline;
   const picked: CheckResult[] = [];
-  for (const id of order) for (const r of results) if (r.figure === id && !picked.includes(r)) picked.push(r);
-  const rows = picked.length ? picked : results.filter((r) => r.limit).slice(0, 5);
+  for (const id of order) for (const r of results) if (r.figure === id && !r.change && !picked.includes(r)) picked.push(r);
+  const rows = picked.length ? picked : results.filter((r) => r.limit && !r.change).slice(0, 5);
   const groups = new Map<string, SpecRow[]>();
   for (const r of rows) {
     const title = `${r.band} (${bandRange(r.fromHz, r.toHz)})`;

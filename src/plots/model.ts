@@ -129,6 +129,7 @@ function genericPlots(part: NormalizedPart): PlotDef[] {
   const seen = new Set<string>();
   const out: PlotDef[] = [];
   for (const c of part.checks) {
+    if (c.change) continue;
     if (c.figure.shape !== 'trace' || seen.has(c.figure.id)) continue;
     seen.add(c.figure.id);
     out.push({ figure: c.figure.id, range: 'limits' });
@@ -188,7 +189,7 @@ export function buildPlots(part: NormalizedPart, units: readonly UnitData[]): Pl
     const fig = figureFor(part, def.figure);
     if (!fig || fig.shape !== 'trace' || !fig.perPoint) return;
     const limitsFrom = def.limitsFrom ?? [def.figure];
-    const matching = part.checks.filter((c) => limitsFrom.includes(c.figure.id));
+    const matching = part.checks.filter((c) => limitsFrom.includes(c.figure.id) && !c.change);
     // files in mixed-mode order hold modes: only mixed-mode items can be drawn from them, never single-ended names
     const items = itemsFor(def, fig, matching, ports).filter((i) => !units[0].mixedModeOrder || i.params.every((p) => p.mode !== undefined));
     // noise figures sit on the noise frequencies

@@ -11,7 +11,7 @@ import type { Field, Schema } from './schema-dsl.js';
 const partFields = (PART_SCHEMA as Extract<Schema, { t: 'object' }>).fields;
 const str = (description: string): Schema => ({ t: 'string', description });
 
-const requirementFields: Record<string, Field> = Object.fromEntries(Object.entries(limitFields).filter(([k]) => k !== 'when' && k !== 'assured-by'));
+const requirementFields: Record<string, Field> = Object.fromEntries(Object.entries(limitFields).filter(([k]) => k !== 'when' && k !== 'assured-by' && k !== 'change'));
 
 export const COMPARISON_SCHEMA: Schema = {
   t: 'object',

@@ -62,8 +62,16 @@ export interface NormalizedCheck {
   readonly label: string;
   /** How the vendor assures the limit (assured-by), or null: checked on the listed units only. */
   readonly assuredBy: Assurance | null;
+  /** Qualification: the limit bounds the change per unit from one stage to another (later minus earlier), or null. */
+  readonly change: Change | null;
   readonly at: Position;
   readonly onAt: Position;
+}
+
+/** Two stages of a qualification sequence, each the conditions its measurements carry. */
+export interface Change {
+  readonly from: Readonly<Record<string, string>>;
+  readonly to: Readonly<Record<string, string>>;
 }
 
 /** A specification the vendor declares (no Touchstone file carries it): values as written. */
@@ -369,6 +377,24 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
         }
       }
     }
+    let change: Change | null = null;
+    if (isObj(e.change) && isObj(e.change.from) && isObj(e.change.to)) {
+      const stage = (key: 'from' | 'to') => {
+        const out: Record<string, string> = {};
+        for (const [k, v] of Object.entries((e.change as Obj)[key] as Obj)) {
+          out[k] = conditionText(v);
+          if (!measurements.some((m) => m.conditions[k] === out[k])) {
+            const known = [...new Set(measurements.map((m) => m.conditions[k]).filter((x) => x !== undefined))];
+            err('unknown-condition', `${path}.change.${key}.${k}`, `no measured unit has ${k}: ${out[k]}${known.length ? `; the units have ${k} ${known.join(', ')}` : `; no unit lists the condition "${k}"`}`);
+          }
+        }
+        return out;
+      };
+      change = { from: stage('from'), to: stage('to') };
+      if (figure.shape !== 'trace') err('bad-limit', `${path}.change`, `a change limit compares a figure point by point between two stages, and ${figure.id} has one value per unit; use a figure with a value at every point (e.g. insertion-loss)`);
+      if (e.when !== undefined) err('bad-limit', `${path}.when`, 'a change limit takes its units from its two stages; leave when out');
+      if (kind !== 'limit') err('bad-limit', `${path}.change`, 'change belongs to limits');
+    }
     const levelQ = e.level !== undefined ? parseQuantity(e.level as string) : null;
     if (levelQ && levelQ.ok && !(levelQ.value > 0 && levelQ.value <= MAX_LEVEL_DB)) {
       err('bad-value', `${path}.level`, `level ${e.level} is out of range: the band edges sit above 0 dB and at most ${MAX_LEVEL_DB} dB below the best insertion loss (the usual values are 0.5, 1 and 3 dB)`);
@@ -387,6 +413,7 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
       levelDb: levelQ && levelQ.ok ? levelQ.value : 3,
       label: typeof e.label === 'string' ? e.label : figure.title,
       assuredBy: typeof e['assured-by'] === 'string' ? (e['assured-by'] as Assurance) : null,
+      change,
       at: at(path),
       onAt: at(`${path}.on`).line ? at(`${path}.on`) : at(path),
     };

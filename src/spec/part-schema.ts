@@ -47,6 +47,14 @@ export const limitFields: Record<string, Field> = {
   min: { t: 'quantity', description: 'the smallest value allowed' },
   nominal: { t: 'quantity', description: 'the intended value; with tolerance, the allowed window is nominal ± tolerance' },
   tolerance: { t: 'quantity', description: 'half the width of the allowed window around nominal (nominal defaults to the figure\'s own: 0 for balances)' },
+  change: {
+    t: 'object',
+    description: 'qualification: the limit bounds the change of the figure per unit between two stages (the value at `to` minus the value at `from`, point by point), e.g. {from: {stage: initial}, to: {stage: after thermal cycling}}; a unit matches a stage by its serial and conditions',
+    fields: {
+      from: { ...conditions, description: 'the conditions of the earlier stage, e.g. {stage: initial}', required: true },
+      to: { ...conditions, description: 'the conditions of the later stage, e.g. {stage: after thermal cycling}', required: true },
+    },
+  },
   'assured-by': str('how the vendor assures the limit for parts it ships: every-unit (each unit is tested against it), sample (characterised on a sample, not tested on every unit) or design (by design, not tested); without it the limit is checked on the listed units only', { enum: ASSURANCES }),
 };
 

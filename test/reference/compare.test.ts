@@ -11,7 +11,7 @@ import { execFileSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { commonGrid, differenceTrace, medianTrace } from '../../src/compare/difference.js';
+import { commonGrid, differenceTrace, medianTrace } from '../../src/evaluate/difference.js';
 import { renormalize } from '../../src/network/convert.js';
 import { readTouchstone } from '../../src/touchstone/read.js';
 import { expectClose } from '../helpers.js';

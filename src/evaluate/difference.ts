@@ -10,7 +10,7 @@
  * figure's value between its own points — numpy's interp on the same values.
  */
 import { interpolateAt } from '../network/interpolate.js';
-import type { Trace } from '../evaluate/trace.js';
+import type { Trace } from './trace.js';
 
 /** The median of the traces at each point of the first one's grid; the points no trace reaches are left out. */
 export function medianTrace(traces: readonly Trace[]): Trace {
