@@ -7,7 +7,7 @@ import type { CheckResult, PartResult } from '../evaluate/evaluate.js';
 import { figuresJson } from '../evaluate/json.js';
 import { printable } from '../format/escape.js';
 import { coarsestResolutionHz, formatFrequency } from '../format/units.js';
-import { formatLimit, formatValue } from '../format/values.js';
+import { formatLimit, formatStages, formatValue } from '../format/values.js';
 import { evaluatePartFile } from '../pipeline/part.js';
 import { formatSpecError } from '../spec/diagnostics.js';
 import { parseArgs, UsageError, type FlagSpec } from './args.js';
@@ -33,7 +33,7 @@ function pad(s: string, width: number): string {
 export function figuresTable(r: PartResult, p: Painter, resolutionHz: number | null = null): string {
   const head = ['figure', 'on', 'band', 'limit', 'typical', 'worst', 'at', 'margin', ''];
   const rows = r.results.map((c) => [
-    printable(c.label),
+    printable(c.change ? `${c.label} (${formatStages(c.change)})` : c.label),
     printable(c.on.join(' ')),
     printable(c.band),
     formatLimit(c.limit, c.unit),

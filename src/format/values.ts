@@ -73,3 +73,9 @@ export interface Cell {
   readonly value: number | null;
 }
 
+
+/** A change limit's stages as "initial → after thermal cycling" (each stage's condition values). */
+export function formatStages(change: { readonly from: Readonly<Record<string, string>>; readonly to: Readonly<Record<string, string>> }): string {
+  const one = (c: Readonly<Record<string, string>>) => Object.values(c).join(', ');
+  return `${one(change.from)} → ${one(change.to)}`;
+}

@@ -10,7 +10,7 @@ import type { CheckResult } from '../evaluate/evaluate.js';
 import { figuresJson } from '../evaluate/json.js';
 import { largest, smallest } from '../evaluate/stats.js';
 import { bandRange, coarsestResolutionHz, formatFrequency, trimNumber } from '../format/units.js';
-import { formatLimit, formatValue, type Cell } from '../format/values.js';
+import { formatLimit, formatStages, formatValue, type Cell } from '../format/values.js';
 import { composeDisclaimer, conditionText, specification, type SpecGroup } from './specification.js';
 import { ieee370Quality } from '../network/ieee370.js';
 import { passivity, reciprocity } from '../network/quality.js';
@@ -42,6 +42,8 @@ export interface ComplianceRow {
   readonly at: Cell;
   readonly margin: Cell;
   readonly verdict: 'PASS' | 'FAIL' | 'REPORT';
+  /** A change limit's two stages, "stage: initial → stage: after shock"; '' for every other row. */
+  readonly stages: string;
   readonly units: ReadonlyArray<{ readonly unit: string; readonly worst: Cell; readonly at: Cell; readonly margin: Cell; readonly verdict: 'PASS' | 'FAIL' | 'REPORT' }>;
 }
 
@@ -180,6 +182,7 @@ function complianceRow(r: CheckResult, res: number | null): ComplianceRow {
     at: atCell(r.worstAtHz),
     margin: cell(r.margin, r.unit, res),
     verdict: verdictOf(r.pass),
+    stages: r.change ? formatStages(r.change) : '',
     units: r.units.map((u) => ({ unit: u.unit, worst: cell(u.worst, r.unit, res), at: atCell(u.atHz), margin: cell(u.margin, r.unit, res), verdict: verdictOf(u.pass) })),
   };
 }
