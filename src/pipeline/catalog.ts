@@ -26,6 +26,7 @@ import { assetPathProblem, loadSettings, type SiteSettings } from '../site/setti
 import { realPath, within } from '../io/output-folder.js';
 import { readYamlFile } from '../io/text-file.js';
 import { evaluatePartFile, type LoadedUnit, type StageTimes } from './part.js';
+import { lotStatistics, stripSvg, CPK_MIN_UNITS, type LotGroup } from '../archive/lot.js';
 
 export type { PlotBlock } from './plot-blocks.js';
 
@@ -64,6 +65,19 @@ export interface MeasurementRow {
   readonly operator: string;
   /** The file's own comment and [Begin Information] lines (the first 12). */
   readonly fileLines: readonly string[];
+}
+
+export interface LotRow {
+  readonly label: string;
+  readonly on: string;
+  readonly band: string;
+  readonly stages: string;
+  /** Distinct units. */
+  readonly units: number;
+  readonly groups: ReadonlyArray<{ readonly label: string; readonly count: number; readonly mean: string; readonly std: string; readonly min: string; readonly max: string; readonly cpk: string; readonly worst: string }>;
+  /** Per condition: the largest minus the smallest of the conditions' worsts, or ''. */
+  readonly conditionSpread: string;
+  readonly strip: string;
 }
 
 export interface QualityRow {
@@ -116,6 +130,8 @@ export interface PartPage {
   readonly plots: readonly PlotBlock[];
   readonly measurements: readonly MeasurementRow[];
   readonly quality: readonly QualityRow[];
+  /** Lot statistics per limit (the test report). */
+  readonly lots: readonly LotRow[];
   readonly ratings: ReadonlyArray<{ readonly parameter: string; readonly value: string; readonly notes: string }>;
   readonly cautions: readonly string[];
   /** Warnings of the evaluation: where (FILE:LINE:COL, for the report and the terminal) and what. */
@@ -160,6 +176,8 @@ export interface Catalog {
   /** The comparisons of candidate parts (content/comparisons/<slug>.yaml). */
   readonly comparisons: readonly ComparisonPage[];
   readonly generator: string;
+  /** Cpk is shown from this many units up (archive/lot.ts). */
+  readonly cpkMinUnits: number;
 }
 
 
@@ -185,6 +203,27 @@ function complianceRow(r: CheckResult, res: number | null): ComplianceRow {
     stages: r.change ? formatStages(r.change) : '',
     units: r.units.map((u) => ({ unit: u.unit, worst: cell(u.worst, r.unit, res), at: atCell(u.atHz), margin: cell(u.margin, r.unit, res), verdict: verdictOf(u.pass) })),
   };
+}
+
+function lotRows(part: NormalizedPart, results: readonly CheckResult[], units: readonly LoadedUnit[], res: number | null): LotRow[] {
+  const lotOf = new Map(part.measurements.map((m) => [m.label, m.lot]));
+  const conditionsOf = new Map(units.map((u) => [u.unit, u.conditions]));
+  const serialOf = new Map(units.map((u) => [u.unit, u.serial]));
+  return results.filter((r) => r.limit).map((r) => {
+    const s = lotStatistics(r, (unit) => ({ serial: serialOf.get(unit) ?? unit, lot: lotOf.get(unit) ?? null, conditions: r.change ? {} : (conditionsOf.get(unit) ?? {}) }));
+    const f = (v: number | null) => formatValue(v, r.unit, res);
+    const row = (g: LotGroup) => ({ label: g.label || 'all units', count: g.summary.count, mean: f(g.summary.mean), std: g.summary.std === null ? '—' : f(g.summary.std), min: f(g.summary.min), max: f(g.summary.max), cpk: g.summary.cpk === null ? `— (${g.summary.cpkNote})` : g.summary.cpk.toFixed(2), worst: f(g.worst) });
+    return {
+      label: r.label,
+      on: r.on.join(', '),
+      band: r.band,
+      stages: r.change ? formatStages(r.change) : '',
+      groups: [s.all, ...s.lots, ...s.conditions].map(row),
+      units: s.all.summary.count,
+      conditionSpread: s.conditionSpread === null ? '' : f(s.conditionSpread),
+      strip: stripSvg(s.allWorsts, r.limit, r.unit === 's' ? 1e9 : 1),
+    };
+  });
 }
 
 function quality(part: NormalizedPart, u: LoadedUnit): QualityRow {
@@ -317,6 +356,7 @@ export async function buildPartPage(partFile: string, contentRoot: string, slug:
     plots,
     measurements: outcome.units.map((u, i) => measurement(u, part.measurements[i])),
     quality: outcome.units.map((u) => quality(part, u)),
+    lots: lotRows(part, result.results, outcome.units, resolution),
     ratings: part.ratings.map((r) => ({ parameter: r.parameter, value: r.value, notes: r.notes ?? '' })),
     cautions: cautionsFor(part.partClass, part.cautions),
     warnings: result.warnings.map((w) => ({ where: `${w.file}:${w.line}:${w.column}`, message: w.message })),
@@ -399,5 +439,6 @@ export function assembleCatalog(site: SiteSettings, parts: readonly PartPage[], 
     comparisons,
     version,
     generator: `scatterbook ${version}`,
+    cpkMinUnits: CPK_MIN_UNITS,
   };
 }

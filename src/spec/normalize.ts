@@ -35,6 +35,8 @@ export interface NormalizedMeasurement {
   readonly calibration: string | null;
   readonly date: string | null;
   readonly operator: string | null;
+  /** The production lot, as written, or null. */
+  readonly lot: string | null;
   readonly at: Position;
   readonly fileAt: Position;
 }
@@ -196,7 +198,7 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
       const key = `${unit}\u0000${JSON.stringify(Object.entries(conditions).sort())}`;
       if (seen.has(key)) err('duplicate', `measurements.${i}.unit`, `unit ${unit} is listed twice under the same conditions (entries ${(seen.get(key) as number) + 1} and ${i + 1}); list each measurement once`);
       seen.set(key, i);
-      measurements.push({ unit, label: unit, file: m.file, conditions, notes: str(m.notes), instrument: str(m.instrument), calibration: str(m.calibration), date: str(m.date), operator: str(m.operator), at: at(`measurements.${i}`), fileAt: at(`measurements.${i}.file`) });
+      measurements.push({ unit, label: unit, file: m.file, conditions, notes: str(m.notes), instrument: str(m.instrument), calibration: str(m.calibration), date: str(m.date), operator: str(m.operator), lot: str(m.lot), at: at(`measurements.${i}`), fileAt: at(`measurements.${i}.file`) });
     });
   }
   // where a serial repeats, results name the measurement by serial and conditions: "SN3001 @ 85 °C"

@@ -156,6 +156,7 @@ export const PART_SCHEMA: Schema = {
           calibration: str('the calibration: method, kit, date'),
           date: str('the date of the measurement, YYYY-MM-DD (a real calendar date)', { pattern: '^\\d{4}-\\d{2}-\\d{2}$', patternHint: 'YYYY-MM-DD', format: 'date' }),
           operator: str('who measured it'),
+          lot: text('the production lot the unit comes from (lot statistics are grouped by it)'),
         },
       },
     },
