@@ -13,6 +13,7 @@ import { outputRefusal, SITE_MARKER, SITE_MARKER_TEXT } from '../io/output-folde
 import { discard, removeDeadBuilds, stagingFolder, swapInto } from '../io/swap.js';
 import { buildCatalog } from '../pipeline/build-catalog.js';
 import { buildManifest, MANIFEST, manifestText } from '../archive/manifest.js';
+import { writeExports } from '../archive/exports.js';
 import { closePlotPool } from '../plots/pool.js';
 import { writeSite } from '../site/eleventy-run.js';
 import { PACKAGE_ROOT } from '../site/plugin.js';
@@ -143,6 +144,7 @@ async function buildAndPublish(o: BuildOptions, t: Terminal, started: number): P
   try {
     await writeSite(o.content, site, staging.dir);
     writeFileSync(join(staging.dir, SITE_MARKER), SITE_MARKER_TEXT);
+    writeExports(site, staging.dir, (path, text) => writeFileSync(path, text));
     if (found) {
       const report = await printAll(found, staging.dir, printJobs(site, staging.dir, packageVersion()), {
         paper: site.site.paper,

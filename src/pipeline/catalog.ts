@@ -27,6 +27,7 @@ import { realPath, within } from '../io/output-folder.js';
 import { readYamlFile } from '../io/text-file.js';
 import { evaluatePartFile, type LoadedUnit, type StageTimes } from './part.js';
 import { lotStatistics, stripSvg, CPK_MIN_UNITS, type LotGroup } from '../archive/lot.js';
+import { medianNetwork, medianTouchstone } from '../archive/exports.js';
 
 export type { PlotBlock } from './plot-blocks.js';
 
@@ -138,6 +139,8 @@ export interface PartPage {
   readonly warnings: ReadonlyArray<{ readonly where: string; readonly message: string }>;
   /** The JSON of `scatterbook figures --json`, for machine readers and tests. */
   readonly figuresJson: string;
+  /** Exports: the site paths of the part's figures as JSON and CSV and of the median Touchstone file (null: why there is none). */
+  readonly exports: { readonly json: string; readonly csv: string; readonly median: { readonly url: string; readonly text: string } | null; readonly noMedian: string };
   /** What the page rests on, for the manifest: the part file and every measurement file, relative to the content folder, with their SHA-256. */
   readonly inputs: Inputs;
 }
@@ -363,9 +366,25 @@ export async function buildPartPage(partFile: string, contentRoot: string, slug:
     // safe inside <script type="application/json">: no "<" can close the element
     figuresJson: JSON.stringify(figuresJson(result)).replace(/</g, '\\u003c'),
     inputs: inputsOf(partFile, outcome.units, contentRoot),
+    exports: exportsOf(part, slug, outcome.units),
   };
   return { page, failure: null };
 }
+
+function exportsOf(part: NormalizedPart, slug: string, units: readonly LoadedUnit[]): PartPage['exports'] {
+  const json = `parts/${slug}/figures.json`, csv = `parts/${slug}/figures.csv`;
+  if (units.some((u) => u.mixedModeOrder)) return { json, csv, median: null, noMedian: 'the files are in mixed-mode order' };
+  // with typical-at, the median is of the measurements typical values are quoted at
+  const at = part.typicalAt;
+  const chosen = at && units.some((u) => Object.entries(at).every(([k, v]) => u.conditions[k] === v)) ? units.filter((u) => Object.entries(at).every(([k, v]) => u.conditions[k] === v)) : units;
+  const m = medianNetwork(chosen.map((u) => u.network));
+  if (!('value' in m)) return { json, csv, median: null, noMedian: m.why };
+  const name = pdfSafe(part.part, slug).replace(/$/, `-median.s${m.value.ports}p`);
+  return { json, csv, median: { url: `parts/${slug}/${name}`, text: medianTouchstone(part.part, part.revision, chosen.map((u) => u.unit), m.value) }, noMedian: '' };
+}
+
+/** The part number kept to letters, digits, '.', '-' and '_' (file names of the site). */
+const pdfSafe = (part: string, slug: string) => part.replace(/[^A-Za-z0-9._-]+/g, '_').replace(/^[._]+/, '') || slug;
 
 function inputsOf(specFile: string, units: readonly LoadedUnit[], contentRoot: string): Inputs {
   const spec = { path: contentPath(contentRoot, specFile), sha256: createHash('sha256').update(readFileSync(specFile)).digest('hex') };
