@@ -132,7 +132,7 @@ describe('a mount point as the output folder is updated by swapping its contents
       expect(r.status).toBe(0);
       expect(lstatSync(join(p, 'volume')).dev).toBe(dev);
       expect(existsSync(join(p, 'volume/stale.html'))).toBe(false);
-      expect(readdirSync(join(p, 'volume')).sort()).toEqual(['.scatterbook-site', 'assets', 'index.html', 'manifest.json', 'parts']);
+      expect(readdirSync(join(p, 'volume')).sort()).toEqual(['.scatterbook-site', 'assets', 'figures.csv', 'figures.json', 'index.html', 'manifest.json', 'parts']);
     } finally {
       spawnSync('umount', [join(p, 'volume')]);
     }
