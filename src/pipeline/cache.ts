@@ -75,7 +75,10 @@ export function openCache(dir: string, content: string, siteText: string): PartC
   const base = createHash('sha256').update(toolBuildId()).update('\0').update(siteText).update('\0').update(treeHash(join(content, '_includes'))).digest('hex');
   const keyOf = (partFile: string): string | null => {
     try {
-      return sha256(`${base}\0${readFileSync(partFile, 'utf8')}`).slice(0, 32);
+      // release records and released documents key the entry too: they make the revision history and the release check
+      const dir = dirname(partFile);
+      const records = readdirSync(dir).filter((n) => /^release-.+\.txt$/.test(n)).sort().map((n) => `${n}\0${readFileSync(join(dir, n), 'utf8')}`).join('\0');
+      return sha256(`${base}\0${readFileSync(partFile, 'utf8')}\0${records}\0${treeHash(join(dir, 'released'))}`).slice(0, 32);
     } catch {
       return null; // not a readable file: the part's build says why
     }

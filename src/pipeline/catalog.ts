@@ -5,7 +5,7 @@
  */
 import { createHash } from 'node:crypto';
 import { existsSync, readdirSync, readFileSync, realpathSync, statSync } from 'node:fs';
-import { basename, join, relative, sep } from 'node:path';
+import { basename, dirname, join, relative, sep } from 'node:path';
 import type { CheckResult } from '../evaluate/evaluate.js';
 import { figuresJson } from '../evaluate/json.js';
 import { largest, smallest } from '../evaluate/stats.js';
@@ -28,6 +28,8 @@ import { readYamlFile } from '../io/text-file.js';
 import { evaluatePartFile, type LoadedUnit, type StageTimes } from './part.js';
 import { lotStatistics, stripSvg, CPK_MIN_UNITS, type LotGroup } from '../archive/lot.js';
 import { medianNetwork, medianTouchstone } from '../archive/exports.js';
+import { recordedFigures } from '../archive/release.js';
+import { history, readReleases, releaseProblem, type HistoryRow } from '../archive/releases.js';
 
 export type { PlotBlock } from './plot-blocks.js';
 
@@ -141,6 +143,10 @@ export interface PartPage {
   readonly figuresJson: string;
   /** Exports: the site paths of the part's figures as JSON and CSV and of the median Touchstone file (null: why there is none). */
   readonly exports: { readonly json: string; readonly csv: string; readonly median: { readonly url: string; readonly text: string } | null; readonly noMedian: string };
+  /** Releases and the current revision, oldest first (archive/releases.ts). */
+  readonly history: readonly HistoryRow[];
+  /** The released documents the site carries unchanged: where they are in the content folder, and their site path. */
+  readonly releasedFiles: ReadonlyArray<{ readonly from: string; readonly url: string }>;
   /** What the page rests on, for the manifest: the part file and every measurement file, relative to the content folder, with their SHA-256. */
   readonly inputs: Inputs;
 }
@@ -308,6 +314,12 @@ export async function buildPartPage(partFile: string, contentRoot: string, slug:
   if (outlineProblem) {
     return { page: null, failure: { slug, file: display, messages: [formatSpecError({ code: 'missing-file', file: display, message: outlineProblem, ...part.outlineAt }, outcome.source)] } };
   }
+  const partDir = dirname(partFile);
+  const releases = readReleases(partDir, (f) => relative(process.cwd(), f) || f);
+  const rel = (path: string) => relative(partDir, path).split(sep).join('/');
+  const problem = releases.errors[0] ?? releaseProblem(releases.records, part.revision, { path: 'part.yaml', sha256: sha256File(partFile) }, outcome.units.map((u) => ({ path: rel(u.path), sha256: u.sha256 })), { file: display, ...(part.revisionAt.line ? part.revisionAt : { line: 0, column: 0 }) });
+  if (problem) return { page: null, failure: { slug, file: display, messages: [formatSpecError(problem, problem.file === display ? outcome.source : undefined)] } };
+  const past = history(releases.records, { revision: part.revision, date: part.date ?? '', figures: recordedFigures(result.results) }, slug, partDir);
   const tp = performance.now();
   const plots = await plotBlocks(buildPlots(part, outcome.units), `${slug}-`);
   if (times) times.plots += performance.now() - tp;
@@ -367,6 +379,8 @@ export async function buildPartPage(partFile: string, contentRoot: string, slug:
     figuresJson: JSON.stringify(figuresJson(result)).replace(/</g, '\\u003c'),
     inputs: inputsOf(partFile, outcome.units, contentRoot),
     exports: exportsOf(part, slug, outcome.units),
+    history: past.rows,
+    releasedFiles: past.files.map((f) => ({ from: contentPath(contentRoot, f.from), url: f.url })),
   };
   return { page, failure: null };
 }
@@ -386,8 +400,10 @@ function exportsOf(part: NormalizedPart, slug: string, units: readonly LoadedUni
 /** The part number kept to letters, digits, '.', '-' and '_' (file names of the site). */
 const pdfSafe = (part: string, slug: string) => part.replace(/[^A-Za-z0-9._-]+/g, '_').replace(/^[._]+/, '') || slug;
 
+const sha256File = (path: string) => createHash('sha256').update(readFileSync(path)).digest('hex');
+
 function inputsOf(specFile: string, units: readonly LoadedUnit[], contentRoot: string): Inputs {
-  const spec = { path: contentPath(contentRoot, specFile), sha256: createHash('sha256').update(readFileSync(specFile)).digest('hex') };
+  const spec = { path: contentPath(contentRoot, specFile), sha256: sha256File(specFile) };
   const data = units.map((u) => ({ unit: u.unit, path: contentPath(contentRoot, u.path), sha256: u.sha256 }));
   return { spec, data, fingerprint: fingerprintOf(spec, data) };
 }

@@ -92,6 +92,8 @@ export interface NormalizedPart {
   readonly title: string;
   readonly partClass: PartClass;
   readonly revision: string;
+  /** Where revision is written (or the file's start when it is not). */
+  readonly revisionAt: Position;
   readonly date: string | null;
   readonly vendor: string | null;
   readonly description: string | null;
@@ -449,6 +451,7 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
     title: str(spec.title) ?? '',
     partClass,
     revision: str(spec.revision) ?? '',
+    revisionAt: at('revision'),
     date: str(spec.date),
     vendor: str(spec.vendor),
     description: str(spec.description),
