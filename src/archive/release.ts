@@ -137,7 +137,13 @@ export function figureChanges(before: readonly RecordedFigure[], after: readonly
   for (const f of after) {
     const o = old.get(f.key);
     if (!o) out.push(`${f.key}: new (worst ${formatValue(f.worst, f.unit)})`);
-    else if (formatValue(o.worst, o.unit) !== formatValue(f.worst, f.unit) || o.pass !== f.pass) out.push(`${f.key}: worst ${formatValue(o.worst, o.unit)} → ${formatValue(f.worst, f.unit)}${o.pass !== f.pass ? ` (${o.pass ? 'pass' : 'fail'} → ${f.pass ? 'pass' : 'fail'})` : ''}`);
+    else {
+      const parts: string[] = [];
+      if (formatValue(o.worst, o.unit) !== formatValue(f.worst, f.unit)) parts.push(`worst ${formatValue(o.worst, o.unit)} → ${formatValue(f.worst, f.unit)}`);
+      if (formatValue(o.margin, o.unit) !== formatValue(f.margin, f.unit)) parts.push(`margin ${formatValue(o.margin, o.unit)} → ${formatValue(f.margin, f.unit)}${parts.length ? '' : ' (the limit changed)'}`);
+      if (o.pass !== f.pass) parts.push(`${o.pass ? 'pass' : 'fail'} → ${f.pass ? 'pass' : 'fail'}`);
+      if (parts.length) out.push(`${f.key}: ${parts.join(', ')}`);
+    }
     old.delete(f.key);
   }
   for (const k of old.keys()) out.push(`${k}: no longer listed`);

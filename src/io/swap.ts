@@ -14,7 +14,7 @@
  * Staging and old folders carry the builder's process id in their names, so a
  * later build removes those that builds killed before they finished left behind.
  */
-import { lstatSync, mkdirSync, readdirSync, renameSync, rmSync, statSync } from 'node:fs';
+import { existsSync, lstatSync, mkdirSync, readdirSync, renameSync, rmSync, statSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import { realPath } from './output-folder.js';
 
@@ -75,12 +75,47 @@ function removeLeftovers(dir: string, pattern: RegExp): string[] {
 
 const escapeRe = (s: string) => s.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
 
-/** Staging and old folders of the target left by builds that were killed; removes them and says which. */
+/**
+ * Staging and old folders of the target left by builds that were killed;
+ * removes them and says which. A build killed in the middle of its swap is
+ * undone first, so the previous site comes back whole: beside the target, a
+ * dead old folder with no target is renamed back; inside a mount point, the
+ * entries already placed are removed and the old entries moved back.
+ */
 export function removeDeadBuilds(target: string): string[] {
   const abs = realPath(target);
   const beside = new RegExp(`^\\.${escapeRe(basename(abs))}\\.(?:building|old)-(\\d+)-`);
   const inside = new RegExp(`^${escapeRe(CONTENTS_PREFIX)}(?:building|old)-(\\d+)-`);
+  restoreInterruptedSwap(abs);
   return [...removeLeftovers(dirname(abs), beside), ...removeLeftovers(abs, inside)];
+}
+
+function restoreInterruptedSwap(abs: string): void {
+  const dead = (dir: string, re: RegExp) => {
+    try {
+      return readdirSync(dir)
+        .filter((n) => {
+          const m = re.exec(n);
+          return m !== null && !alive(Number(m[1]));
+        })
+        .sort();
+    } catch {
+      return [];
+    }
+  };
+  if (!existsSync(abs)) {
+    const olds = dead(dirname(abs), new RegExp(`^\\.${escapeRe(basename(abs))}\\.old-(\\d+)-`));
+    if (olds.length) renameSync(join(dirname(abs), olds[olds.length - 1]), abs);
+    return;
+  }
+  for (const o of dead(abs, new RegExp(`^${escapeRe(CONTENTS_PREFIX)}old-(\\d+)-`))) {
+    const old = join(abs, o);
+    const saved = readdirSync(old);
+    if (!saved.length) continue;
+    // every previous entry was moved into old before any new one was placed: whatever else is here is new
+    for (const n of readdirSync(abs)) if (!n.startsWith(CONTENTS_PREFIX)) rmSync(join(abs, n), { recursive: true, force: true });
+    for (const n of saved) renameSync(join(old, n), join(abs, n));
+  }
 }
 
 /** A fresh staging folder for `target` on the target's file system. */
