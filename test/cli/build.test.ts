@@ -155,7 +155,7 @@ describe('scatterbook build', () => {
     writeFileSync(
       yaml,
       readFileSync(yaml, 'utf8')
-        .replace('  - {unit: SN2001, file: data/sn2001.s2p, conditions: {temperature: 25 °C}}', '  - {unit: SN2001, file: data/sn2001.s2p, conditions: {temperature: 25 °C}, instrument: 4-port analyser, calibration: SOLT 2026-09-30, date: 2026-10-01, operator: Q. Tester}')
+        .replace('  - {unit: SN2001, file: data/sn2001.s2p, conditions: {temperature: 25 °C, stage: initial}}', '  - {unit: SN2001, file: data/sn2001.s2p, conditions: {temperature: 25 °C, stage: initial}, instrument: 4-port analyser, calibration: SOLT 2026-09-30, date: 2026-10-01, operator: Q. Tester}')
         .replace('ratings:', 'features: [Flat attenuation, Stainless-steel body]\ndeclared:\n  - {parameter: Power handling, max: 2, unit: W, conditions: "CW, 25 °C"}\nordering:\n  - {code: VT-PAD-10-SMA, description: SMA male to SMA female}\nratings:'),
     );
     expect(run(['build', 'docs', '--out', 'site-docs', '--no-cache', '--no-pdf']).status).toBe(0);

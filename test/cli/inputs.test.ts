@@ -48,8 +48,8 @@ describe('what a data path really is', () => {
     writeFileSync(yaml, readFileSync(yaml, 'utf8').replace('file: data/sn2001.s2p', 'file: data/folder.s2p').replace('file: data/sn2002.s2p', 'file: data/pipe.s2p'));
     const r = run(['figures', yaml]);
     expect(r.status).toBe(1);
-    expect(r.stderr).toMatch(/part\.yaml:13:\d+: error: measurement file "data\/folder\.s2p" of unit SN2001 is a folder, not a file/);
-    expect(r.stderr).toMatch(/part\.yaml:14:\d+: error: measurement file "data\/pipe\.s2p" of unit SN2002 is a named pipe \(FIFO\), not a file/);
+    expect(r.stderr).toMatch(/part\.yaml:14:\d+: error: measurement file "data\/folder\.s2p" of unit SN2001 is a folder, not a file/);
+    expect(r.stderr).toMatch(/part\.yaml:15:\d+: error: measurement file "data\/pipe\.s2p" of unit SN2002 is a named pipe \(FIFO\), not a file/);
     expect(r.seconds).toBeLessThan(30);
     const read = run(['read', join(data, 'pipe.s2p')]);
     expect(read.status).toBe(1);
