@@ -62,8 +62,9 @@ export function templateSearchPath(content: string): string[] {
   return existsSync(own) ? [own, INCLUDES_DIR] : [INCLUDES_DIR];
 }
 
+/** One Nunjucks environment per Eleventy run (per build, and per rebuild of `serve`): templates compile once a build, and a template edited between builds is read again. */
 export function scatterbookSite(config: UserConfig, options: SitePluginOptions): void {
-  const env = new nunjucks.Environment(new nunjucks.FileSystemLoader(templateSearchPath(options.content), { noCache: true }), {
+  const env = new nunjucks.Environment(new nunjucks.FileSystemLoader(templateSearchPath(options.content), { noCache: false }), {
     autoescape: true,
     throwOnUndefined: false,
     trimBlocks: true,
