@@ -12,6 +12,8 @@ import { describeFault } from '../io/fault.js';
 import { outputRefusal, SITE_MARKER, SITE_MARKER_TEXT } from '../io/output-folder.js';
 import { discard, removeDeadBuilds, stagingFolder, swapInto } from '../io/swap.js';
 import { buildCatalog } from '../pipeline/build-catalog.js';
+import { partFolders } from '../pipeline/catalog.js';
+import { toolBuildId } from '../pipeline/cache.js';
 import { buildManifest, MANIFEST, manifestText } from '../archive/manifest.js';
 import { writeExports } from '../archive/exports.js';
 import { closePlotPool } from '../plots/pool.js';
@@ -34,7 +36,11 @@ export const BUILD_FLAGS: FlagSpec[] = [
   { name: 'no-cache', help: 'recompute every part (by default unchanged parts come from the cache)' },
   { name: 'cache', value: true, help: 'the cache folder (default .scatterbook-cache beside the output)' },
   { name: 'strict', help: 'exit 3 when a published part fails a limit (the site is still written)' },
+  { name: 'shard', value: true, help: 'build slice K of N of the parts (e.g. 2/4), for scatterbook merge to join' },
 ];
+
+/** The record a sharded build leaves in its output for `scatterbook merge`. */
+export const SHARD_RECORD = '.scatterbook-shard.json';
 
 export function packageVersion(): string {
   return (JSON.parse(readFileSync(join(PACKAGE_ROOT, 'package.json'), 'utf8')) as { version: string }).version;
@@ -48,6 +54,16 @@ export interface BuildOptions {
   /** off: no PDFs; auto: PDFs when a browser is found; required: no browser is an error. */
   readonly pdf: 'off' | 'auto' | 'required';
   readonly browser: string | undefined;
+  /** Slice K of N (1-based), or null for the whole catalog. */
+  readonly shard?: { readonly k: number; readonly n: number } | null;
+}
+
+function parseShard(v: string | true | undefined): { k: number; n: number } | null {
+  if (v === undefined) return null;
+  const m = typeof v === 'string' ? /^(\d+)\/(\d+)$/.exec(v) : null;
+  const k = m ? Number(m[1]) : NaN, n = m ? Number(m[2]) : NaN;
+  if (!m || !(n >= 1) || !(k >= 1) || k > n) throw new UsageError(`--shard ${String(v)}: expected K/N with 1 ≤ K ≤ N, e.g. --shard 2/4`);
+  return { k, n };
 }
 
 export function buildOptions(argv: readonly string[], t: Terminal, flags: readonly FlagSpec[] = BUILD_FLAGS): BuildOptions & { flags: Map<string, string | true> } {
@@ -63,7 +79,7 @@ export function buildOptionsOf(args: ParsedArgs, t: Terminal): BuildOptions & { 
   const cacheDir = args.flags.has('no-cache') ? null : resolve(t.cwd, typeof cacheFlag === 'string' ? cacheFlag : join(out, '..', '.scatterbook-cache'));
   if (args.flags.has('pdf') && args.flags.has('no-pdf')) throw new UsageError('--pdf and --no-pdf contradict each other');
   const pdf = args.flags.has('no-pdf') ? 'off' : args.flags.has('pdf') ? 'required' : 'auto';
-  return { content, out, keepGoing: args.flags.has('keep-going'), cacheDir, pdf, browser: args.flags.get('browser') as string | undefined, flags: args.flags };
+  return { content, out, keepGoing: args.flags.has('keep-going'), cacheDir, pdf, browser: args.flags.get('browser') as string | undefined, shard: parseShard(args.flags.get('shard')), flags: args.flags };
 }
 
 export interface BuildOutcome {
@@ -107,6 +123,7 @@ async function buildAndPublish(o: BuildOptions, t: Terminal, started: number): P
   const built = await buildCatalog(o.content, {
     version: packageVersion(),
     cacheDir: o.cacheDir,
+    shard: o.shard ?? null,
     onPart: (done, total, slug) => bar.update(`parts ${done}/${total}  ${printable(slug)}`),
   });
   bar.done();
@@ -115,7 +132,9 @@ async function buildAndPublish(o: BuildOptions, t: Terminal, started: number): P
   const siteErrors = [...built.settingsErrors, ...planAssets(o.content, rel).errors];
   const problems = [...siteErrors, ...catalog.failures.flatMap((f) => f.messages)];
   for (const m of problems) t.stderr.write(`${m}\n`);
-  if (siteErrors.length || (catalog.failures.length && !o.keepGoing) || catalog.parts.length === 0) {
+  // a slice may hold no part at all (more slices than parts); a whole build needs one
+  const none = catalog.parts.length === 0 && !(o.shard && partFolders(o.content).length > 0);
+  if (siteErrors.length || (catalog.failures.length && !o.keepGoing) || none) {
     const files = catalog.failures.length + siteErrors.length;
     const why = catalog.parts.length === 0 && !catalog.failures.length && !siteErrors.length ? `no parts found: expected ${rel(join(o.content, 'parts'))}/<slug>/part.yaml` : `${files} file${files === 1 ? '' : 's'} with errors`;
     t.stderr.write(`${p.red('error:')} ${why}; nothing was written (${rel(o.out)} is unchanged)${catalog.failures.length && !o.keepGoing ? '; --keep-going publishes the parts that build' : ''}\n`);
@@ -156,6 +175,8 @@ async function buildAndPublish(o: BuildOptions, t: Terminal, started: number): P
       const rate = report.printed / Math.max(report.printMs / 1000, 1e-3);
       pdfNote = `, ${report.printed} PDF${report.printed === 1 ? '' : 's'} (${rate.toFixed(1)} per second after the browser started)`;
     }
+    // a slice records what merge needs to join it without rendering anything again
+    if (o.shard) writeFileSync(join(staging.dir, SHARD_RECORD), JSON.stringify({ format: 1, shard: o.shard, tool: toolBuildId(), version: packageVersion(), content: o.content, catalog: site }));
     // last: the manifest hashes every file the site holds
     writeFileSync(join(staging.dir, MANIFEST), manifestText(buildManifest(site, staging.dir, packageVersion())));
     swapInto(staging);
@@ -177,14 +198,14 @@ async function buildAndPublish(o: BuildOptions, t: Terminal, started: number): P
     }
   }
   t.stdout.write(
-    `built ${catalog.parts.length} part${catalog.parts.length === 1 ? '' : 's'}${catalog.comparisons.length ? ` and ${catalog.comparisons.length} comparison${catalog.comparisons.length === 1 ? '' : 's'}` : ''}${pdfNote}${failed ? `, ${failed} left out with errors` : ''}${built.cacheHits ? ` (${built.cacheHits} unchanged, from the cache)` : ''} into ${rel(o.out)}/ in ${(ms / 1000).toFixed(1)} s; open ${rel(join(o.out, 'index.html'))}\n`,
+    `built ${o.shard ? `slice ${o.shard.k}/${o.shard.n}: ` : ''}${catalog.parts.length} part${catalog.parts.length === 1 ? '' : 's'}${catalog.comparisons.length ? ` and ${catalog.comparisons.length} comparison${catalog.comparisons.length === 1 ? '' : 's'}` : ''}${pdfNote}${failed ? `, ${failed} left out with errors` : ''}${built.cacheHits ? ` (${built.cacheHits} unchanged, from the cache)` : ''} into ${rel(o.out)}/ in ${(ms / 1000).toFixed(1)} s; open ${rel(join(o.out, 'index.html'))}\n`,
   );
   return { code: failed ? 1 : 0, parts: catalog.parts.length, failed, failing, ms };
 }
 
 export const buildCommand: Command = {
   name: 'build',
-  usage: 'scatterbook build [CONTENT_DIR] [--out DIR] [--keep-going] [--strict] [--no-pdf | --pdf] [--browser PATH] [--no-cache] [--cache DIR]',
+  usage: 'scatterbook build [CONTENT_DIR] [--out DIR] [--keep-going] [--strict] [--no-pdf | --pdf] [--browser PATH] [--no-cache] [--cache DIR] [--shard K/N]',
   flags: BUILD_FLAGS,
   async run(argv, t) {
     const o = buildOptions(argv, t);

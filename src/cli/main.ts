@@ -15,6 +15,7 @@ export const COMMANDS: ReadonlyArray<{ readonly name: string; readonly summary: 
   { name: 'read', summary: 'show what a Touchstone file holds (ports, points, references, passivity, reciprocity)', load: async () => (await import('./read-command.js')).readCommand },
   { name: 'figures', summary: 'compute a part\'s figures over its measured units and check them against its limits', load: async () => (await import('./figures-command.js')).figuresCommand },
   { name: 'compare', summary: 'compare candidate parts side by side: a comparison file, or Touchstone files over a band', load: async () => (await import('./compare-command.js')).compareCommand },
+  { name: 'merge', summary: 'join the outputs of build --shard K/N into one site', load: async () => (await import('./merge-command.js')).mergeCommand },
   { name: 'release', summary: 'freeze a part\'s current revision: its documents under released/<revision>/ and a release record', load: async () => (await import('./release-command.js')).releaseCommand },
   { name: 'verify', summary: 'check a built site against its manifest.json (and its inputs and figures, given the content folder)', load: async () => (await import('./verify-command.js')).verifyCommand },
   { name: 'schema', summary: 'print the JSON Schema of part files or comparison files (for editors)', load: async () => (await import('./schema-command.js')).schemaCommand },

@@ -16,7 +16,15 @@ export function withPdfLinks(catalog: Catalog): Catalog {
   const parts = catalog.parts.map((p) => ({ ...p, pdfUrl: `parts/${p.slug}/${pdfFileName(p.part, p.slug)}`, reportPdfUrl: p.reportUrl ? `parts/${p.slug}/${reportPdfFileName(p.part, p.slug)}` : null }));
   const find = (p: Catalog['parts'][number]) => parts.find((q) => q.slug === p.slug) ?? p;
   const comparisons = catalog.comparisons.map((c) => ({ ...c, pdfUrl: `comparisons/${c.slug}/${comparisonPdfFileName(c.slug)}` }));
-  return { ...catalog, parts, comparisons, reportParts: catalog.reportParts.map(find), byClass: catalog.byClass.map((g) => ({ ...g, parts: g.parts.map(find) })) };
+  const findComparison = (c: Catalog['comparisons'][number]) => comparisons.find((x) => x.slug === c.slug) ?? c;
+  return {
+    ...catalog,
+    parts,
+    comparisons,
+    reportParts: catalog.reportParts.map(find),
+    byClass: catalog.byClass.map((g) => ({ ...g, parts: g.parts.map(find) })),
+    pages: { parts: catalog.pages.parts.map(find), reports: catalog.pages.reports.map(find), comparisons: catalog.pages.comparisons.map(findComparison) },
+  };
 }
 
 /** comparisons/<slug>/<slug>-comparison.pdf */
@@ -24,7 +32,7 @@ export const comparisonPdfFileName = (slug: string) => `${slug.replace(/[^A-Za-z
 
 /** The datasheet of every part, then its test report where reports are built; then every comparison. */
 export function printJobs(catalog: Catalog, root: string, version: string): PrintJob[] {
-  const comparisons = catalog.comparisons.map((c): PrintJob => ({
+  const comparisons = catalog.pages.comparisons.map((c): PrintJob => ({
     html: join(root, 'comparisons', c.slug, 'index.html'),
     pdf: join(root, 'comparisons', c.slug, comparisonPdfFileName(c.slug)),
     metadata: { title: `${c.title} (comparison)`, subject: `comparison of ${c.candidates.length} candidate parts`, author: catalog.site.vendor, keywords: ['comparison', ...c.candidates.map((x) => x.label)], date: c.date || null, creator: `scatterbook ${version}` },
@@ -35,7 +43,7 @@ export function printJobs(catalog: Catalog, root: string, version: string): Prin
 }
 
 function partJobs(catalog: Catalog, root: string, version: string): PrintJob[] {
-  return catalog.parts.flatMap((p) => {
+  return catalog.pages.parts.map((p) => catalog.parts.find((q) => q.slug === p.slug) ?? p).flatMap((p) => {
     const metadata = (what: string) => ({
       title: `${p.title ? `${p.part} — ${p.title}` : p.part}${what === 'datasheet' ? '' : ` (${what})`}`,
       subject: `${p.partClass} ${what}, revision ${p.revision || '—'}`,

@@ -6,6 +6,7 @@
 import { openCache } from './cache.js';
 import { assembleCatalog, buildPartPage, partFolders, readSettings, type Catalog, type PartFailure, type PartPage } from './catalog.js';
 import type { StageTimes } from './part.js';
+import { createHash } from 'node:crypto';
 import { relative } from 'node:path';
 import { formatSpecError } from '../spec/diagnostics.js';
 import { comparisonFiles, evaluateComparisonFile } from './comparison.js';
@@ -16,6 +17,13 @@ export interface BuildCatalogOptions {
   readonly version: string;
   readonly onPart?: (done: number, total: number, slug: string) => void;
   readonly times?: StageTimes;
+  /** Build slice K of N only (1-based): the parts shardOf assigns to it, and the comparisons in slice 1. */
+  readonly shard?: { readonly k: number; readonly n: number } | null;
+}
+
+/** The slice (0-based) of N a part belongs to: the first 32 bits of the SHA-256 of its slug, modulo N — stable across machines and runs. */
+export function shardOf(slug: string, n: number): number {
+  return parseInt(createHash('sha256').update(slug).digest('hex').slice(0, 8), 16) % n;
 }
 
 export interface CatalogBuild {
@@ -26,7 +34,8 @@ export interface CatalogBuild {
 
 export async function buildCatalog(contentRoot: string, options: BuildCatalogOptions): Promise<CatalogBuild> {
   const { settings, errors, text: settingsText } = readSettings(contentRoot);
-  const folders = partFolders(contentRoot);
+  const shard = options.shard ?? null;
+  const folders = partFolders(contentRoot).filter((f) => !shard || shardOf(f.slug, shard.n) === shard.k - 1);
   const pages: PartPage[] = [];
   const failures: PartFailure[] = [];
   let hits = 0;
@@ -60,7 +69,7 @@ export async function buildCatalog(contentRoot: string, options: BuildCatalogOpt
   }
   // comparisons read the parts they name afresh (their files are checked like any candidate's)
   const comparisons: ComparisonPage[] = [];
-  for (const { slug, file } of comparisonFiles(contentRoot)) {
+  for (const { slug, file } of shard && shard.k !== 1 ? [] : comparisonFiles(contentRoot)) {
     const display = relative(process.cwd(), file) || file;
     const outcome = await evaluateComparisonFile(file, contentRoot, display);
     if (outcome.errors.length || !outcome.comparison) {

@@ -187,6 +187,8 @@ export interface Catalog {
   readonly generator: string;
   /** Cpk is shown from this many units up (archive/lot.ts). */
   readonly cpkMinUnits: number;
+  /** The pages this run renders (all, in a build; none but the index when `merge` joins shards that rendered them). */
+  readonly pages: { readonly parts: readonly PartPage[]; readonly reports: readonly PartPage[]; readonly comparisons: readonly ComparisonPage[] };
 }
 
 
@@ -475,5 +477,6 @@ export function assembleCatalog(site: SiteSettings, parts: readonly PartPage[], 
     version,
     generator: `scatterbook ${version}`,
     cpkMinUnits: CPK_MIN_UNITS,
+    pages: { parts, reports: site.reports ? parts : [], comparisons },
   };
 }

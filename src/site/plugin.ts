@@ -86,7 +86,7 @@ export function scatterbookSite(config: UserConfig, options: SitePluginOptions):
     if (plan.errors.length) throw new Error(plan.errors.join('\n'));
     copyAssets(plan, out);
     // the measured Touchstone files the datasheets link ("S-parameter data"), unless site.yaml keeps them out
-    const files = (await catalog()).parts.flatMap((p) => [...p.dataFiles, ...p.releasedFiles].map((d) => ({ from: join(options.content, d.from), to: d.url })));
+    const files = (await catalog()).pages.parts.flatMap((p) => [...p.dataFiles, ...p.releasedFiles].map((d) => ({ from: join(options.content, d.from), to: d.url })));
     copyAssets({ files, errors: [] }, out);
   });
   // Eleventy reads watch targets relative to the working folder
