@@ -13,7 +13,7 @@ import type { Position, SpecError } from '../spec/diagnostics.js';
 import type { Change, NormalizedCheck, NormalizedPart } from '../spec/normalize.js';
 import { formatFrequency } from '../format/units.js';
 import { differenceTrace } from './difference.js';
-import { marginOf, typicalOf, type CheckResult, type UnitData, type UnitResult } from './evaluate.js';
+import { marginOf, resultOf, type CheckResult, type UnitData, type UnitResult } from './evaluate.js';
 import { figureTrace } from './trace.js';
 
 const matches = (u: UnitData, stage: Readonly<Record<string, string>>) => Object.entries(stage).every(([k, v]) => u.conditions[k] === v);
@@ -58,32 +58,5 @@ export function evaluateChange(part: NormalizedPart, check: NormalizedCheck & { 
     results.push({ unit: serial, worst: w.value, atHz: w.atHz, worstOn: w.on, margin, pass: margin === null ? null : margin >= 0 });
     later.push(b[0]);
   }
-  let worst = results[0];
-  for (const r of results.slice(1)) {
-    const x = score(r.worst), y = score(worst.worst);
-    if (x < y || (x === y && r.atHz !== null && worst.atHz !== null && r.atHz < worst.atHz)) worst = r;
-  }
-  return {
-    value: {
-      kind: check.kind,
-      figure: check.figure.id,
-      label: check.label,
-      on: check.on,
-      band: band.name,
-      fromHz: band.fromHz,
-      toHz: band.toHz,
-      unit: check.figure.unit,
-      limit: check.limit,
-      assuredBy: check.assuredBy,
-      worst: worst.worst,
-      worstAtHz: worst.atHz,
-      worstUnit: worst.unit,
-      worstOn: worst.worstOn,
-      ...typicalOf(results, later, score, null),
-      margin: worst.margin,
-      pass: check.limit ? results.every((r) => r.pass === true) : null,
-      units: results,
-      change: check.change,
-    },
-  };
+  return { value: resultOf(check, results, later, score, null) };
 }

@@ -276,6 +276,16 @@ function evaluateCheck(part: NormalizedPart, check: NormalizedCheck, all: readon
     const margin = check.limit ? marginOf(check.limit, b.value) : null;
     unitResults.push({ unit: u.unit, worst: b.value, atHz: b.atHz, worstOn: b.on, margin, pass: margin === null ? null : margin >= 0 });
   }
+  return resultOf(check, unitResults, units, score, part.typicalAt);
+}
+
+/**
+ * A check's result from its units' results: the worst is the unit worst with
+ * the least margin (ties: lowest frequency, then the first unit), typical by
+ * typicalOf over `typicalUnits` (the units in the order of `unitResults`),
+ * pass when every unit passes.
+ */
+export function resultOf(check: NormalizedCheck, unitResults: readonly UnitResult[], typicalUnits: readonly UnitData[], score: (v: number) => number, typicalAt: Readonly<Record<string, string>> | null): CheckResult {
   let worst = unitResults[0];
   for (const r of unitResults.slice(1)) {
     const a = score(r.worst), w = score(worst.worst);
@@ -287,9 +297,9 @@ function evaluateCheck(part: NormalizedPart, check: NormalizedCheck, all: readon
     figure: check.figure.id,
     label: check.label,
     on: check.on,
-    band: band.name,
-    fromHz: band.fromHz,
-    toHz: band.toHz,
+    band: check.band.name,
+    fromHz: check.band.fromHz,
+    toHz: check.band.toHz,
     unit: check.figure.unit,
     limit,
     assuredBy: check.assuredBy,
@@ -297,10 +307,11 @@ function evaluateCheck(part: NormalizedPart, check: NormalizedCheck, all: readon
     worstAtHz: worst.atHz,
     worstUnit: worst.unit,
     worstOn: worst.worstOn,
-    ...typicalOf(unitResults, units, score, part.typicalAt),
+    ...typicalOf(unitResults, typicalUnits, score, typicalAt),
     margin: worst.margin,
     pass: limit ? unitResults.every((r) => r.pass === true) : null,
     units: unitResults,
+    ...(check.change ? { change: check.change } : {}),
   };
 }
 
