@@ -78,13 +78,74 @@ function localIds(svg: string, prefix: string): string {
   return svg.replace(/id="clip(\d+)"/g, (_, n: string) => `id="${local(n)}"`).replace(/url\(#clip(\d+)\)/g, (_, n: string) => `url(#${local(n)})`);
 }
 
-/** Renders one plot to an SVG string with role="img", <title> and <desc>. */
-export async function renderPlot(m: PlotModel, idPrefix = ''): Promise<string> {
-  const view = new vega.View(vega.parse(vegaSpecFor(m)), { renderer: 'none' });
+/*
+ * Parsing a Vega spec and building its dataflow costs more than drawing: each
+ * shape's compiled spec has its texts, domains, items, colours and dashes
+ * turned into signals and is parsed once; each plot gets a fresh View of that
+ * runtime with its signals and data (a kept View would keep its earlier
+ * layout). A shape whose spec does not take the signals cleanly is drawn the
+ * old way, from a spec of its own.
+ */
+const SIGNALS = ['sb_title', 'sb_xTitle', 'sb_yTitle', 'sb_xDomain', 'sb_yDomain', 'sb_items', 'sb_colors', 'sb_dashes'] as const;
+
+function signalSpec(shape: PlotShape): vega.Spec | null {
+  const n = shape.itemCount;
+  const list = (f: (i: number) => string) => `[${Array.from({ length: n }, (_, i) => f(i)).join(',')}]`;
+  let text = compiledTemplate(shape)
+    .replaceAll('"@@title@@"', '{"signal":"sb_title"}')
+    .replaceAll('"@@xTitle@@"', '{"signal":"sb_xTitle"}')
+    .replaceAll('"@@yTitle@@"', '{"signal":"sb_yTitle"}')
+    .replaceAll(`[${SENTINEL.x0},${SENTINEL.x1}]`, '{"signal":"sb_xDomain"}')
+    .replaceAll(`[${SENTINEL.y0},${SENTINEL.y1}]`, '{"signal":"sb_yDomain"}');
+  if (n > 0) {
+    text = text
+      .replaceAll(list((i) => `"@@item${i}@@"`), '{"signal":"sb_items"}')
+      .replaceAll(list((i) => `"@@color${i}@@"`), '{"signal":"sb_colors"}')
+      .replaceAll(list((i) => `[${DASH_SENTINEL + i},1]`), '{"signal":"sb_dashes"}');
+  }
+  if (/@@|987654321|12345678900000|23456789000000|98765\d/.test(text)) return null;
+  const spec = JSON.parse(text) as vega.Spec & { signals?: object[] };
+  spec.signals = [...(spec.signals ?? []), ...SIGNALS.map((name) => ({ name, value: null }))];
+  return spec;
+}
+
+const runtimes = new Map<string, vega.Runtime | null>();
+
+/** The parsed runtime of a shape's signal spec (parsed once), or null when the shape takes no signals. */
+function runtimeFor(shape: PlotShape): vega.Runtime | null {
+  const key = JSON.stringify(shape);
+  if (!runtimes.has(key)) {
+    const spec = signalSpec(shape);
+    runtimes.set(key, spec ? vega.parse(spec) : null);
+  }
+  return runtimes.get(key) ?? null;
+}
+
+async function drawSvg(m: PlotModel): Promise<string> {
+  const runtime = runtimeFor(shapeOf(m));
+  const t = textsOf(m);
+  // a fresh view of the parsed runtime: the same layout as a view of its own spec, without parsing one per plot
+  const view = runtime
+    ? new vega.View(runtime, { renderer: 'none' })
+        .signal('sb_title', t.title)
+        .signal('sb_xTitle', t.xTitle)
+        .signal('sb_yTitle', t.yTitle)
+        .signal('sb_xDomain', [...t.xDomain])
+        .signal('sb_yDomain', [...t.yDomain])
+        .signal('sb_items', [...t.items])
+        .signal('sb_colors', [...t.colors])
+        .signal('sb_dashes', t.dashes.map((d) => [...d]))
+    : new vega.View(vega.parse(vegaSpecFor(m)), { renderer: 'none' });
   for (const [name, rows] of Object.entries(plotData(m))) view.data(name, rows as object[]);
   await view.runAsync();
   const svg = await view.toSVG();
   view.finalize();
+  return svg;
+}
+
+/** Renders one plot to an SVG string with role="img", <title> and <desc>. */
+export async function renderPlot(m: PlotModel, idPrefix = ''): Promise<string> {
+  const svg = await drawSvg(m);
   const id = `${idPrefix}${m.id}`;
   return localIds(svg, id).replace(
     /^<svg /,
