@@ -23,8 +23,91 @@ function jsonNumber(v: number): string {
   return Number.isFinite(v) ? String(v) : 'null';
 }
 
-/** The JSON of `read --json`, written directly (no object per value). */
-export function readJson(data: TouchstoneData): string {
+/** Whether bytes src[a…a+n) are a JSON number: -?(0|[1-9][0-9]*)(.[0-9]+)?([eE][+-]?[0-9]+)? */
+function isJsonNumber(src: Uint8Array, a: number, n: number): boolean {
+  let i = a;
+  const end = a + n;
+  const digit = (c: number) => c >= 48 && c <= 57;
+  if (src[i] === 45) i++;
+  if (i >= end || !digit(src[i])) return false;
+  if (src[i] === 48) i++;
+  else while (i < end && digit(src[i])) i++;
+  if (i < end && src[i] === 46) {
+    i++;
+    if (i >= end || !digit(src[i])) return false;
+    while (i < end && digit(src[i])) i++;
+  }
+  if (i < end && (src[i] === 101 || src[i] === 69)) {
+    i++;
+    if (i < end && (src[i] === 43 || src[i] === 45)) i++;
+    if (i >= end || !digit(src[i])) return false;
+    while (i < end && digit(src[i])) i++;
+  }
+  return i === end;
+}
+
+/**
+ * The S array of `read --json` from the file's own text: an S-parameter file
+ * in RI format holds every value exactly as the JSON needs it (the reader
+ * converts each decimal text exactly), so each number's bytes are copied as
+ * written, where they are a JSON number (else, and for −0, it is formatted).
+ * Formatting 640,000 doubles costs more than reading the file.
+ */
+function sJsonFromText(data: TouchstoneData, text: { source: Uint8Array; tokens: Float64Array }): string {
+  const net = data.network;
+  const n = net.ports, k = net.freqHz.length;
+  const { source, tokens } = text;
+  const s = net.s;
+  // first pass: each value's text — its bytes as written (their length), or a formatted number — and the total size
+  const count = s.length;
+  const lengths = new Int32Array(count);
+  const formatted = new Map<number, string>();
+  let size = 0;
+  for (let p = 0; p < count; p++) {
+    const t = tokens[p], v = s[p];
+    const a = Math.floor(t / 64), len = t % 64;
+    if (len > 0 && !(v === 0 && source[a] === 45) && isJsonNumber(source, a, len)) lengths[p] = len;
+    else {
+      const f = Number.isFinite(v) ? String(v) : 'null';
+      formatted.set(p, f);
+      lengths[p] = f.length;
+    }
+    size += lengths[p];
+  }
+  // punctuation: per point "[" "]" and a comma, per row "[" "]" and a comma, per entry "[" "," "]" and a comma
+  size += k * (3 + n * (3 + n * 4));
+  const out = new Uint8Array(size);
+  let w = 0;
+  for (let q = 0; q < k; q++) {
+    if (q) out[w++] = 44;
+    out[w++] = 91;
+    for (let i = 0; i < n; i++) {
+      if (i) out[w++] = 44;
+      out[w++] = 91;
+      for (let j = 0; j < n; j++) {
+        if (j) out[w++] = 44;
+        out[w++] = 91;
+        for (let part = 0; part < 2; part++) {
+          const p = 2 * ((q * n + i) * n + j) + part;
+          if (part) out[w++] = 44;
+          const f = formatted.size ? formatted.get(p) : undefined;
+          if (f === undefined) {
+            const a = Math.floor(tokens[p] / 64), len = lengths[p];
+            for (let c = 0; c < len; c++) out[w + c] = source[a + c];
+            w += len;
+          } else for (let c = 0; c < f.length; c++) out[w++] = f.charCodeAt(c);
+        }
+        out[w++] = 93;
+      }
+      out[w++] = 93;
+    }
+    out[w++] = 93;
+  }
+  return Buffer.from(out.buffer, out.byteOffset, w).toString('latin1');
+}
+
+/** The JSON of `read --json`, written directly (no object per value); with the file's text, S values are copied as written (sJsonFromText). */
+export function readJson(data: TouchstoneData, text?: { source: Uint8Array; tokens: Float64Array }): string {
   const net = data.network;
   const n = net.ports;
   const k = net.freqHz.length;
@@ -32,7 +115,9 @@ export function readJson(data: TouchstoneData): string {
   parts.push(`{"ports":${n},"version":${JSON.stringify(data.info.version)},"parameter":${JSON.stringify(data.info.parameter)},`);
   parts.push(`"frequencyHz":[${Array.from(net.freqHz, jsonNumber).join(',')}],`);
   parts.push(`"referenceOhms":[${Array.from(net.z0, jsonNumber).join(',')}],"s":[`);
-  for (let q = 0; q < k; q++) {
+  const asWritten = text && data.info.parameter === 'S' && data.info.format === 'RI' && text.tokens.length === net.s.length;
+  if (asWritten) parts.push(sJsonFromText(data, text));
+  for (let q = 0; q < (asWritten ? 0 : k); q++) {
     const rows: string[] = [];
     for (let i = 0; i < n; i++) {
       const cells: string[] = [];
@@ -108,13 +193,14 @@ export const readCommand: Command = {
       if (!Number.isInteger(ports) || ports < 1) throw new UsageError(`--ports needs a whole number ≥ 1, got "${portsFlag}"`);
     }
     const file = args.positionals[0];
-    const result = readTouchstoneFile(resolve(t.cwd, file), { ports });
+    const json = args.flags.has('json');
+    const result = readTouchstoneFile(resolve(t.cwd, file), { ports, keepText: json, hash: false });
     for (const w of result.warnings) t.stderr.write(`${formatDiagnostic(file, w, 'warning')}\n`);
     if (!result.value) {
       for (const e of result.errors) t.stderr.write(`${formatDiagnostic(file, e, 'error')}\n`);
       return EXIT.badInput;
     }
-    t.stdout.write(args.flags.has('json') ? readJson(result.value) : readSummary(file, result.value, t));
+    t.stdout.write(json ? readJson(result.value, result.text) : readSummary(file, result.value, t));
     return EXIT.ok;
   },
 };

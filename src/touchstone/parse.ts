@@ -25,6 +25,11 @@ export interface ParseOptions {
   readonly ports?: number;
   /** Total size in bytes, when known: lets storage be sized once. */
   readonly sizeHint?: number;
+  /**
+   * Keep where each network value's text is in the input (record.tokens):
+   * for writers that copy numbers as written rather than format them again.
+   */
+  readonly keepTokens?: boolean;
 }
 
 export interface ParseResult {
@@ -119,6 +124,8 @@ export class TouchstoneParser {
   private stride = 0; // values per point in full-matrix storage
   private freq: Column | null = null;
   private vals: Column | null = null;
+  /** With keepTokens: per value, its text's offset in the input × 64 + its length (0 when longer than 63 bytes). */
+  private toks: Column | null = null;
   private count = 0;
   private pos = 0; // numbers read of the current point
   private pointLine = 0;
@@ -391,6 +398,7 @@ export class TouchstoneParser {
     const cap = frequencies ?? 64;
     this.freq = new Column(cap);
     this.vals = new Column(cap * this.stride);
+    if (this.opts.keepTokens) this.toks = new Column(cap * this.stride);
   }
 
   private startNetwork(): void {
@@ -466,6 +474,7 @@ export class TouchstoneParser {
     const mirror = layout.mirror;
     const size = this.recordSize;
     let vals = (this.vals as Column).data;
+    let toks = this.toks ? this.toks.data : null;
     let pos = this.pos;
     let at = this.count * this.stride;
     let ended = false;
@@ -500,6 +509,7 @@ export class TouchstoneParser {
         }
         if (this.count >= freq.data.length) this.growStorage(base + p);
         vals = (this.vals as Column).data;
+        if (this.toks) toks = this.toks.data;
         freq.data[this.count] = f;
         if (this.count === 0) this.firstPointStart = base + p;
         this.lastFreq = f;
@@ -522,6 +532,12 @@ export class TouchstoneParser {
       vals[at + place[pair] + part] = v;
       const m = mirror[pair];
       if (m >= 0) vals[at + m + part] = v;
+      if (toks) {
+        const len = scanEnd - p;
+        const t = len < 64 ? (base + p) * 64 + len : 0;
+        toks[at + place[pair] + part] = t;
+        if (m >= 0) toks[at + m + part] = t;
+      }
       p = scanEnd;
       pos++;
       if (pos === size) {
@@ -550,6 +566,7 @@ export class TouchstoneParser {
     }
     freq.grow(want);
     vals.grow(want * this.stride);
+    this.toks?.grow(want * this.stride);
   }
 
   private describePoint(): string {
@@ -640,6 +657,7 @@ export class TouchstoneParser {
       mixedModeOrder: this.header.mixedModeOrder,
       freqHz: (this.freq as Column).take(this.count),
       values: (this.vals as Column).take(this.count * this.stride),
+      ...(this.toks ? { tokens: this.toks.take(this.count * this.stride) } : {}),
       noise,
       comments: this.comments,
       information: this.information,

@@ -44,6 +44,8 @@ export interface TouchstoneRecord {
    * in for Lower/Upper files: same layout as Network.s.
    */
   readonly values: Float64Array;
+  /** With the parser's keepTokens: where each value's text is in the input (offset × 64 + length; 0 when not kept), same layout as values. */
+  readonly tokens?: Float64Array;
   readonly noise: NoiseRecord | null;
   /** Comment lines before the data (without the "!"), for provenance. */
   readonly comments: readonly string[];

@@ -42,6 +42,19 @@ describe('scatterbook read', () => {
     });
   });
 
+  it('--json copies numbers of an RI S-parameter file as written where they are JSON numbers, and formats the rest: the same values either way', () => {
+    // +0.5, .5, 5., -0, 1E-3 and 0.25 written every way Touchstone allows; the MA copy of the same values is formatted throughout
+    writeFileSync(join(dir, 'forms.s2p'), '# GHz S RI R 50\n1 +0.5 .5 5. -0 1E-3 0.25 -0.0 2.50e-1\n2 0 -1.5 1e0 00.5 0.125 -2E+0 3 -.75\n');
+    const r = run('read', 'forms.s2p', '--json');
+    expect(r.stderr).toBe('');
+    const s = JSON.parse(r.stdout).s as number[][][][];
+    // v1 2-port order N11 N21 N12 N22: row i, column j
+    expect(s[0]).toEqual([[[0.5, 0.5], [0.001, 0.25]], [[5, 0], [0, 0.25]]]);
+    expect(s[1]).toEqual([[[0, -1.5], [0.125, -2]], [[1, 0.5], [3, -0.75]]]);
+    expect(r.stdout).toContain('[1E-3,0.25]'); // copied as written
+    expect(Object.is(s[0][1][0][1], 0)).toBe(true); // −0 is written as 0, as JSON.stringify does
+  });
+
   it('noise in the JSON: frequencyHz, nfMinDb, gammaOpt as [re, im], rnOhms', () => {
     const j = JSON.parse(run('read', 'noisy.ts', '--json').stdout);
     expect(j.version).toBe('2.0');
