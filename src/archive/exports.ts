@@ -16,6 +16,7 @@
 import { median } from '../evaluate/stats.js';
 import { makeNetwork, type Network } from '../network/network.js';
 import { writeTouchstone } from '../touchstone/write.js';
+import { medianText } from '../pipeline/spill.js';
 
 export const CSV_COLUMNS = [
   'part', 'revision', 'figure', 'on', 'band', 'from_hz', 'to_hz', 'unit',
@@ -72,14 +73,19 @@ export function medianTouchstone(part: string, revision: string, labels: readonl
 }
 
 /** Writes the exports of a built catalog into its site folder (the staging folder of a build). */
-export function writeExports(catalog: { readonly parts: ReadonlyArray<{ readonly slug: string; readonly figuresJson: string; readonly exports: { readonly json: string; readonly csv: string; readonly median: { readonly url: string; readonly text: string } | null } }>; readonly version: string }, siteDir: string, write: (path: string, text: string) => void): void {
+export function writeExports(
+  catalog: { readonly parts: ReadonlyArray<{ readonly slug: string; readonly figuresJson: string; readonly exports: { readonly json: string; readonly csv: string; readonly median: { readonly url: string; readonly text: string; readonly file?: string } | null } }>; readonly version: string },
+  siteDir: string,
+  write: (path: string, text: string) => void,
+  options: { readonly medians?: boolean } = {},
+): void {
   const all: Json[] = [];
   for (const p of catalog.parts) {
     const j = JSON.parse(p.figuresJson) as Json;
     all.push(j);
     write(`${siteDir}/${p.exports.json}`, `${JSON.stringify(j, null, 2)}\n`);
     write(`${siteDir}/${p.exports.csv}`, csvText([j]));
-    if (p.exports.median) write(`${siteDir}/${p.exports.median.url}`, p.exports.median.text);
+    if (p.exports.median && options.medians !== false) write(`${siteDir}/${p.exports.median.url}`, medianText(p.exports.median));
   }
   write(`${siteDir}/figures.json`, `${JSON.stringify({ tool: { name: 'scatterbook', version: catalog.version }, parts: all }, null, 2)}\n`);
   write(`${siteDir}/figures.csv`, csvText(all));

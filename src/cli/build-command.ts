@@ -4,13 +4,13 @@
  * the site is built in a staging folder and swapped in only when every part
  * built (or, with --keep-going, with the good parts and a list of the others).
  */
-import { existsSync, readFileSync, statSync, writeFileSync } from 'node:fs';
+import { existsSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { join, relative, resolve } from 'node:path';
 import { printable } from '../format/escape.js';
 import { planAssets } from '../io/assets.js';
 import { describeFault } from '../io/fault.js';
 import { outputRefusal, SITE_MARKER, SITE_MARKER_TEXT } from '../io/output-folder.js';
-import { discard, removeDeadBuilds, stagingFolder, swapInto } from '../io/swap.js';
+import { discard, pagesFolder, removeDeadBuilds, stagingFolder, swapInto } from '../io/swap.js';
 import { buildCatalog } from '../pipeline/build-catalog.js';
 import { partFolders } from '../pipeline/catalog.js';
 import { toolBuildId } from '../pipeline/cache.js';
@@ -117,6 +117,16 @@ export async function runBuild(o: BuildOptions, t: Terminal): Promise<BuildOutco
 }
 
 async function buildAndPublish(o: BuildOptions, t: Terminal, started: number): Promise<BuildOutcome> {
+  // the pages' SVGs and median files wait here until the pages are written, not in memory (pipeline/spill.ts)
+  const spillDir = pagesFolder(o.out);
+  try {
+    return await buildWith(o, t, started, spillDir);
+  } finally {
+    rmSync(spillDir, { recursive: true, force: true });
+  }
+}
+
+async function buildWith(o: BuildOptions, t: Terminal, started: number, spillDir: string): Promise<BuildOutcome> {
   const p = painter(t.stderr, t.env);
   const bar = progress(t);
   const rel = (x: string) => relative(t.cwd, x) || '.';
@@ -124,6 +134,7 @@ async function buildAndPublish(o: BuildOptions, t: Terminal, started: number): P
     version: packageVersion(),
     cacheDir: o.cacheDir,
     shard: o.shard ?? null,
+    spillDir,
     onPart: (done, total, slug) => bar.update(`parts ${done}/${total}  ${printable(slug)}`),
   });
   bar.done();

@@ -127,7 +127,8 @@ export const mergeCommand: Command = {
       }
       await writeSite(content, joined, staging.dir);
       writeFileSync(join(staging.dir, SITE_MARKER), SITE_MARKER_TEXT);
-      writeExports(whole, staging.dir, (path, text) => writeFileSync(path, text));
+      // each part's files came with its slice (its median's text stayed on the machine that built it)
+      writeExports(whole, staging.dir, (path, text) => writeFileSync(path, text), { medians: false });
       writeFileSync(join(staging.dir, MANIFEST), manifestText(buildManifest(whole, staging.dir, packageVersion())));
       swapInto(staging);
     } catch (e) {

@@ -84,7 +84,7 @@ const escapeRe = (s: string) => s.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
  */
 export function removeDeadBuilds(target: string): string[] {
   const abs = realPath(target);
-  const beside = new RegExp(`^\\.${escapeRe(basename(abs))}\\.(?:building|old)-(\\d+)-`);
+  const beside = new RegExp(`^\\.${escapeRe(basename(abs))}\\.(?:building|old|pages)-(\\d+)-`);
   const inside = new RegExp(`^${escapeRe(CONTENTS_PREFIX)}(?:building|old)-(\\d+)-`);
   restoreInterruptedSwap(abs);
   return [...removeLeftovers(dirname(abs), beside), ...removeLeftovers(abs, inside)];
@@ -116,6 +116,15 @@ function restoreInterruptedSwap(abs: string): void {
     for (const n of readdirSync(abs)) if (!n.startsWith(CONTENTS_PREFIX)) rmSync(join(abs, n), { recursive: true, force: true });
     for (const n of saved) renameSync(join(old, n), join(abs, n));
   }
+}
+
+/** A fresh folder beside the target for what a build keeps out of memory until it writes its pages (removed by the build, or, if it was killed, by the next). */
+export function pagesFolder(target: string): string {
+  const abs = realPath(target);
+  mkdirSync(dirname(abs), { recursive: true });
+  const dir = join(dirname(abs), `.${basename(abs)}.pages-${stamp()}`);
+  mkdirSync(dir);
+  return dir;
 }
 
 /** A fresh staging folder for `target` on the target's file system. */

@@ -10,6 +10,7 @@ import { createHash } from 'node:crypto';
 import { relative } from 'node:path';
 import { formatSpecError } from '../spec/diagnostics.js';
 import { comparisonFiles, evaluateComparisonFile } from './comparison.js';
+import { spillPage } from './spill.js';
 import { buildComparisonPage, type ComparisonPage } from './comparison-page.js';
 
 export interface BuildCatalogOptions {
@@ -19,6 +20,8 @@ export interface BuildCatalogOptions {
   readonly times?: StageTimes;
   /** Build slice K of N only (1-based): the parts shardOf assigns to it, and the comparisons in slice 1. */
   readonly shard?: { readonly k: number; readonly n: number } | null;
+  /** Keep each page's SVGs and median text in files here until the pages are written (pipeline/spill.ts). */
+  readonly spillDir?: string | null;
 }
 
 /** The slice (0-based) of N a part belongs to: the first 32 bits of the SHA-256 of its slug, modulo N — stable across machines and runs. */
@@ -50,13 +53,14 @@ export async function buildCatalog(contentRoot: string, options: BuildCatalogOpt
       const i = nextIndex++;
       const { slug, file } = folders[i];
       const cached = cache ? cache.read(slug, file) : null;
+      const spill = (page: PartPage) => (options.spillDir ? spillPage(page, options.spillDir) : page);
       if (cached) {
-        results[i] = { page: cached, failure: null };
+        results[i] = { page: spill(cached), failure: null };
         hits++;
       } else {
         const b = await buildPartPage(file, contentRoot, slug, settings, options.times);
         if (b.page && cache) cache.write(slug, file, b.page);
-        results[i] = b;
+        results[i] = b.page ? { page: spill(b.page), failure: null } : b;
       }
       done++;
       options.onPart?.(done, folders.length, slug);

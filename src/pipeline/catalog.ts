@@ -142,7 +142,7 @@ export interface PartPage {
   /** The JSON of `scatterbook figures --json`, for machine readers and tests. */
   readonly figuresJson: string;
   /** Exports: the site paths of the part's figures as JSON and CSV and of the median Touchstone file (null: why there is none). */
-  readonly exports: { readonly json: string; readonly csv: string; readonly median: { readonly url: string; readonly text: string } | null; readonly noMedian: string };
+  readonly exports: { readonly json: string; readonly csv: string; readonly median: { readonly url: string; readonly text: string; readonly file?: string } | null; readonly noMedian: string };
   /** Releases and the current revision, oldest first (archive/releases.ts). */
   readonly history: readonly HistoryRow[];
   /** The released documents the site carries unchanged: where they are in the content folder, and their site path. */

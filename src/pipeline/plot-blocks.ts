@@ -7,7 +7,9 @@ export interface PlotBlock {
   /** 'smith' for a Smith chart, else a figure over frequency. */
   readonly kind: 'figure' | 'smith';
   readonly title: string;
+  /** The SVG ('' when it waits in svgFile: pipeline/spill.ts). */
   readonly svg: string;
+  readonly svgFile?: string;
   readonly legend: ReadonlyArray<{ readonly label: string; readonly color: string; readonly dash: string }>;
   /** Limits of one series, drawn as a thick line in its style. */
   readonly limitLegend: ReadonlyArray<{ readonly label: string; readonly color: string; readonly dash: string }>;

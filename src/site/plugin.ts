@@ -11,6 +11,7 @@ import { dirname, join, relative, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { UserConfig } from '@11ty/eleventy';
 import nunjucks from 'nunjucks';
+import { svgOf } from '../pipeline/spill.js';
 import type { Catalog } from '../pipeline/catalog.js';
 import { copyAssets, planAssets } from '../io/assets.js';
 
@@ -70,6 +71,8 @@ export function scatterbookSite(config: UserConfig, options: SitePluginOptions):
     trimBlocks: true,
     lstripBlocks: true,
   });
+  // a plot's SVG comes from the page model or, in a build, from the file it waits in (pipeline/spill.ts)
+  env.addFilter('plotSvg', svgOf);
   config.setLibrary('njk', env);
   let resolved: Promise<Catalog> | null = null;
   const catalog = () => (resolved ??= typeof options.catalog === 'function' ? options.catalog() : Promise.resolve(options.catalog));

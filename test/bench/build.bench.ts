@@ -5,7 +5,8 @@
  * prints the time per stage (read, figures, plots, pages), the total, the
  * peak memory, and the time of a rebuild after one part's YAML changed
  * (served from the content-hash cache for the other 199), then the PDF
- * throughput of the same pages in one browser. Not a test. It runs
+ * throughput of the same pages in one browser (BENCH_PARTS sets the catalog's
+ * size, e.g. 1000 or 2000, for the peak memory at scale). Not a test. It runs
  * the compiled code in dist/, as `scatterbook build` does (plots then render
  * in worker threads).
  */
@@ -80,7 +81,9 @@ rmSync(cache, { recursive: true, force: true });
 async function build(label: string): Promise<void> {
   const times = newStageTimes();
   const t0 = performance.now();
-  const b = await buildCatalog(content, { version: 'bench', cacheDir: cache, times });
+  const spillDir = join(root, 'pages');
+  rmSync(spillDir, { recursive: true, force: true });
+  const b = await buildCatalog(content, { version: 'bench', cacheDir: cache, times, spillDir });
   const t1 = performance.now();
   await writeSite(content, b.catalog, join(root, 'site'));
   times.pages = performance.now() - t1;

@@ -55,7 +55,7 @@ describe('environment faults end in exit 1 with the path and the cause, the old 
     expect(spawnSync('mount', ['-o', 'remount,ro', vol]).status).toBe(0);
     const r = run(['build', 'content', '--out', 'ro/site', '--no-pdf', '--no-cache']);
     expect(r.status).toBe(1);
-    expect(r.stderr).toMatch(/^error: ro\/\.site\.building-[^:]+: the file system is read-only \(EROFS in mkdir\); nothing was published \(ro\/site is unchanged\)\n$/);
+    expect(r.stderr).toMatch(/^error: ro\/\.site\.(?:building|pages)-[^:]+: the file system is read-only \(EROFS in mkdir\); nothing was published \(ro\/site is unchanged\)\n$/);
     expect(snapshot(vol)).toEqual(before);
   });
 

@@ -1,0 +1,42 @@
+/**
+ * The bulky parts of a page model — its plots' SVG and its median Touchstone
+ * text, a few hundred kilobytes a part — kept in files of a build's own
+ * temporary folder from the moment the part is built until the page is
+ * written, so that a build's memory does not grow with its catalog: the page
+ * models in memory hold the files' paths. The cache keeps pages whole.
+ */
+import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import type { PartPage } from './catalog.js';
+
+/** The page with its SVGs and median text moved into files under dir. */
+export function spillPage(page: PartPage, dir: string): PartPage {
+  mkdirSync(dir, { recursive: true });
+  const plots = page.plots.map((p) => {
+    if (!p.svg) return p;
+    const file = join(dir, `${page.slug}-${p.id}.svg`);
+    writeFileSync(file, p.svg);
+    return { ...p, svg: '', svgFile: file };
+  });
+  let median = page.exports.median;
+  if (median && median.text) {
+    const file = join(dir, `${page.slug}-median.txt`);
+    writeFileSync(file, median.text);
+    median = { url: median.url, text: '', file };
+  }
+  return { ...page, plots, exports: { ...page.exports, median } };
+}
+
+/** The page whole again (for the cache). */
+export function inlinePage(page: PartPage): PartPage {
+  const plots = page.plots.map((p) => (p.svgFile ? { ...p, svg: readFileSync(p.svgFile, 'utf8'), svgFile: undefined } : p));
+  const m = page.exports.median;
+  const median = m && m.file ? { url: m.url, text: readFileSync(m.file, 'utf8') } : m;
+  return { ...page, plots, exports: { ...page.exports, median } };
+}
+
+/** A plot's SVG, from the page or from its file. */
+export const svgOf = (p: { svg: string; svgFile?: string }) => p.svg || (p.svgFile ? readFileSync(p.svgFile, 'utf8') : '');
+
+/** A median file's text, from the page or from its file. */
+export const medianText = (m: { text: string; file?: string }) => m.text || (m.file ? readFileSync(m.file, 'utf8') : '');
