@@ -4,7 +4,25 @@ import Eleventy from '@11ty/eleventy';
 import type { Catalog } from '../pipeline/catalog.js';
 import { handOverCatalog, PACKAGE_ROOT, PAGES_DIR } from './plugin.js';
 
-export async function writeSite(content: string, catalog: Catalog, outDir: string): Promise<void> {
+/**
+ * Parts per Eleventy run: Eleventy keeps every page it renders until its run
+ * ends, so a large catalog is written in runs of this many parts (each run
+ * also writes the index, from the whole catalog: the last one stands).
+ * SCATTERBOOK_PAGE_BATCH sets another size (a smaller one caps memory lower).
+ */
+export const PAGE_BATCH = Number(process.env.SCATTERBOOK_PAGE_BATCH) >= 1 ? Math.floor(Number(process.env.SCATTERBOOK_PAGE_BATCH)) : 100;
+
+export async function writeSite(content: string, catalog: Catalog, outDir: string, batch = PAGE_BATCH): Promise<void> {
+  const { parts, reports, comparisons } = catalog.pages;
+  if (parts.length <= batch) return writeRun(content, catalog, outDir);
+  for (let i = 0; i < parts.length; i += batch) {
+    const slice = parts.slice(i, i + batch);
+    const slugs = new Set(slice.map((p) => p.slug));
+    await writeRun(content, { ...catalog, pages: { parts: slice, reports: reports.filter((p) => slugs.has(p.slug)), comparisons: i === 0 ? comparisons : [] } }, outDir);
+  }
+}
+
+async function writeRun(content: string, catalog: Catalog, outDir: string): Promise<void> {
   handOverCatalog(content, catalog);
   const elev = new Eleventy(PAGES_DIR, outDir, { quietMode: true, loader: 'esm', configPath: join(PACKAGE_ROOT, '.eleventy.js') });
   // Eleventy prints a summary line even in quiet mode; scatterbook prints its own. Its errors still throw from write().
