@@ -8,10 +8,12 @@
  * template overrides and the part file's text. The entry lists the SHA-256 of
  * every measurement file the part read; on lookup each is hashed again and any
  * difference (an edit in place with the same size and time included) misses.
- * Nothing is parsed to check an entry.
+ * Nothing is parsed to check an entry. A page's plots' SVG and its median
+ * text sit in files beside its entry, and the page read back refers to them
+ * (pipeline/spill.ts), so a lookup reads a few kilobytes, not the plots.
  */
 import { createHash } from 'node:crypto';
-import { mkdirSync, readdirSync, readFileSync, statSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { dirname, join, relative, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { writeFileAtomic } from '../io/atomic.js';
@@ -101,14 +103,31 @@ export function openCache(dir: string, content: string, siteText: string): PartC
           return null;
         }
       }
-      return entry.page ?? null;
+      const page = entry.page ?? null;
+      // the bulky texts stay in the cache's files: the page refers to them (pipeline/spill.ts), if they are all there
+      if (page && (page.plots.some((p) => p.svgFile && !existsSync(p.svgFile)) || (page.exports.median?.file && !existsSync(page.exports.median.file)))) return null;
+      return page;
     },
     write(slug, partFile, page) {
       const key = keyOf(partFile);
       if (!key) return;
       const inputs = Object.fromEntries(page.measurements.map((m) => [m.file, m.sha256]));
       mkdirSync(dir, { recursive: true });
-      writeFileAtomic(entryPath(slug, key), JSON.stringify({ inputs, page }));
+      // SVGs and the median text in files of their own beside the entry, so that reading an entry reads little
+      const plots = page.plots.map((p) => {
+        if (!p.svg) return p;
+        const file = join(dir, `${slug}-${key}-${p.id}.svg`);
+        writeFileAtomic(file, p.svg);
+        return { ...p, svg: '', svgFile: file };
+      });
+      const m = page.exports.median;
+      let median = m;
+      if (m && m.text) {
+        const file = join(dir, `${slug}-${key}-median.txt`);
+        writeFileAtomic(file, m.text);
+        median = { url: m.url, text: '', file };
+      }
+      writeFileAtomic(entryPath(slug, key), JSON.stringify({ inputs, page: { ...page, plots, exports: { ...page.exports, median } } }));
     },
   };
 }

@@ -6,7 +6,7 @@
  */
 import { spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
-import { cpSync, existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, statSync, symlinkSync, utimesSync, writeFileSync } from 'node:fs';
+import { cpSync, existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, rmSync, statSync, symlinkSync, utimesSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
@@ -108,6 +108,16 @@ describe('scatterbook build', () => {
     const r = run(args);
     expect(r.stdout).toContain('(1 unchanged, from the cache)');
     expect(readFileSync(join(dir, 'site-cache/parts/vt-cbl-150/report.html'), 'utf8')).toContain('≤ 5.30\u00a0dB');
+    // the plots' SVG sit beside the entries; a page from the cache is the page built anew, and one whose SVG is gone is built again
+    const page = readFileSync(join(dir, 'site-cache/parts/vt-pad-10/index.html'), 'utf8');
+    expect(run([...args.slice(0, 3), 'site-cache2', ...args.slice(4)]).stdout).toContain('(2 unchanged, from the cache)');
+    expect(readFileSync(join(dir, 'site-cache2/parts/vt-pad-10/index.html'), 'utf8')).toBe(page);
+    const svgs = readdirSync(join(dir, 'cache-dir')).filter((f) => f.endsWith('.svg'));
+    expect(svgs.length).toBeGreaterThan(0);
+    for (const f of svgs) rmSync(join(dir, 'cache-dir', f));
+    const again = run(args);
+    expect(again.stdout).not.toContain('from the cache');
+    expect(readFileSync(join(dir, 'site-cache/parts/vt-pad-10/index.html'), 'utf8')).toBe(page);
   });
 
   it('the cache never serves a stale page: an edit in place with the same size and time, site settings, template overrides', () => {
