@@ -34,6 +34,11 @@ async function writeRun(content: string, catalog: Catalog, outDir: string): Prom
   const onStray = (e: unknown) => stray.push(e);
   process.on('unhandledRejection', onStray);
   try {
+    await elev.init();
+    // Eleventy's timing notes ("[11ty] Benchmark … Transform" on a slow machine) come from benchmark groups made
+    // before quiet mode applies; they are Eleventy's notes to its developers, not to scatterbook's users
+    const groups = (elev as unknown as { config?: { benchmarkManager?: { getAll(): Record<string, { setIsVerbose(v: boolean): void }> } } }).config?.benchmarkManager?.getAll() ?? {};
+    for (const g of Object.values(groups)) g.setIsVerbose(false);
     await elev.write();
     await new Promise((r) => setImmediate(r));
   } catch (e) {
