@@ -49,8 +49,6 @@ export function siteFiles(root: string): string[] {
   return out.sort((a, b) => (a < b ? -1 : a > b ? 1 : 0));
 }
 
-export const sha256Of = (path: string) => createHash('sha256').update(readFileSync(path)).digest('hex');
-
 /** The manifest of a built site folder and the catalog it was built from. */
 export function buildManifest(catalog: Catalog, siteDir: string, version: string): Manifest {
   return {

@@ -8,7 +8,8 @@ import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { figuresJson } from '../evaluate/json.js';
 import { evaluatePartFile } from '../pipeline/part.js';
-import { MANIFEST, sha256Of, siteFiles, type Manifest, type ManifestFile } from './manifest.js';
+import { sha256File } from '../io/hash.js';
+import { MANIFEST, siteFiles, type Manifest, type ManifestFile } from './manifest.js';
 
 export interface VerifyReport {
   /** What differs, one line each: the file or figure, and the old and new value. */
@@ -38,7 +39,7 @@ export async function verifySite(siteDir: string, contentDir: string | null): Pr
     const path = join(siteDir, o.path);
     if (!existsSync(path)) differences.push(`${o.path}: missing from the site`);
     else {
-      const now = sha256Of(path);
+      const now = sha256File(path);
       if (now !== o.sha256) differences.push(`${o.path}: changed (SHA-256 ${o.sha256} in the manifest, ${now} now)`);
     }
   }
@@ -49,7 +50,7 @@ export async function verifySite(siteDir: string, contentDir: string | null): Pr
       inputs++;
       const path = join(contentDir, f.path);
       if (!existsSync(path)) return differences.push(`${f.path}: input missing from the content folder`);
-      const now = sha256Of(path);
+      const now = sha256File(path);
       if (now !== f.sha256) differences.push(`${f.path}: input changed (SHA-256 ${f.sha256} in the manifest, ${now} now)`);
     };
     for (const e of [...m.parts, ...(m.comparisons ?? [])]) {

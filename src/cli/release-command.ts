@@ -11,12 +11,11 @@
 import { copyFileSync, existsSync, mkdirSync, mkdtempSync, renameSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { basename, dirname, join, relative, resolve } from 'node:path';
-import { createHash } from 'node:crypto';
-import { readFileSync } from 'node:fs';
 import { recordedFigures, recordName, recordText, releasedFolder } from '../archive/release.js';
 import { readReleases } from '../archive/releases.js';
 import { printable } from '../format/escape.js';
 import { writeFileAtomic } from '../io/atomic.js';
+import { sha256File } from '../io/hash.js';
 import { evaluatePartFile } from '../pipeline/part.js';
 import { fingerprintOf } from '../pipeline/catalog.js';
 import { pdfFileName, reportPdfFileName } from '../pdf/jobs.js';
@@ -27,8 +26,6 @@ import { EXIT, type Command } from './command.js';
 import { painter, type Terminal } from './terminal.js';
 
 const FLAGS: FlagSpec[] = [{ name: 'browser', value: true, help: 'the Chromium-family browser that prints the released PDFs (or set SCATTERBOOK_BROWSER)' }];
-
-const sha256 = (path: string) => createHash('sha256').update(readFileSync(path)).digest('hex');
 
 export const releaseCommand: Command = {
   name: 'release',
@@ -84,7 +81,7 @@ export const releaseCommand: Command = {
       // a folder without its record was never released: it is replaced
       if (existsSync(target)) rmSync(target, { recursive: true, force: true });
       renameSync(staging, target);
-      const spec = { path: 'part.yaml', sha256: sha256(partFile) };
+      const spec = { path: 'part.yaml', sha256: sha256File(partFile) };
       const data = outcome.units.map((u) => ({ path: relative(partDir, u.path).split('\\').join('/'), sha256: u.sha256 }));
       const contentSpec = { path: relative(contentRoot, partFile).split('\\').join('/'), sha256: spec.sha256 };
       const contentData = outcome.units.map((u) => ({ unit: u.unit, path: relative(contentRoot, u.path).split('\\').join('/'), sha256: u.sha256 }));
@@ -99,7 +96,7 @@ export const releaseCommand: Command = {
           fingerprint: fingerprintOf(contentSpec, contentData),
           spec,
           data,
-          documents: docs.map(([, to]) => ({ path: `${folder}/${to}`, sha256: sha256(join(target, to)) })),
+          documents: docs.map(([, to]) => ({ path: `${folder}/${to}`, sha256: sha256File(join(target, to)) })),
           figures: recordedFigures(outcome.result.results),
         }),
       );

@@ -3,11 +3,13 @@ import { join } from 'node:path';
 import type { Catalog } from '../pipeline/catalog.js';
 import type { PrintJob } from './print.js';
 
-/** parts/<slug>/<PART-NUMBER>.pdf, the part number kept to letters, digits, '.', '-' and '_'. */
-export function pdfFileName(part: string, slug: string): string {
-  const safe = part.replace(/[^A-Za-z0-9._-]+/g, '_').replace(/^[._]+/, '');
-  return `${safe || slug}.pdf`;
+/** The part number kept to letters, digits, '.', '-' and '_' (no leading '.' or '_'), or the slug when nothing is left: how the part's files in the site are named. */
+export function partFileStem(part: string, slug: string): string {
+  return part.replace(/[^A-Za-z0-9._-]+/g, '_').replace(/^[._]+/, '') || slug;
 }
+
+/** parts/<slug>/<PART-NUMBER>.pdf */
+export const pdfFileName = (part: string, slug: string) => `${partFileStem(part, slug)}.pdf`;
 
 /** parts/<slug>/<PART-NUMBER>-report.pdf */
 export const reportPdfFileName = (part: string, slug: string) => pdfFileName(part, slug).replace(/\.pdf$/, '-report.pdf');

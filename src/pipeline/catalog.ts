@@ -4,7 +4,7 @@
  * templates, which only place it. Eleventy receives this as global data.
  */
 import { createHash } from 'node:crypto';
-import { existsSync, readdirSync, readFileSync, realpathSync, statSync } from 'node:fs';
+import { existsSync, readdirSync, realpathSync, statSync } from 'node:fs';
 import { basename, dirname, join, relative, sep } from 'node:path';
 import type { CheckResult } from '../evaluate/evaluate.js';
 import { figuresJson } from '../evaluate/json.js';
@@ -28,6 +28,8 @@ import { readYamlFile } from '../io/text-file.js';
 import { evaluatePartFile, type LoadedUnit, type StageTimes } from './part.js';
 import { lotStatistics, stripSvg, CPK_MIN_UNITS, type LotGroup } from '../archive/lot.js';
 import { medianNetwork, medianTouchstone } from '../archive/exports.js';
+import { sha256File } from '../io/hash.js';
+import { partFileStem } from '../pdf/jobs.js';
 import { recordedFigures } from '../archive/release.js';
 import { history, readReleases, releaseProblem, type HistoryRow } from '../archive/releases.js';
 
@@ -395,16 +397,12 @@ function exportsOf(part: NormalizedPart, slug: string, units: readonly LoadedUni
   const chosen = at && units.some((u) => Object.entries(at).every(([k, v]) => u.conditions[k] === v)) ? units.filter((u) => Object.entries(at).every(([k, v]) => u.conditions[k] === v)) : units;
   const m = medianNetwork(chosen.map((u) => u.network));
   if (!('value' in m)) return { json, csv, median: null, noMedian: m.why };
-  const name = pdfSafe(part.part, slug).replace(/$/, `-median.s${m.value.ports}p`);
+  const name = `${partFileStem(part.part, slug)}-median.s${m.value.ports}p`;
   return { json, csv, median: { url: `parts/${slug}/${name}`, text: medianTouchstone(part.part, part.revision, chosen.map((u) => u.unit), m.value) }, noMedian: '' };
 }
 
-/** The part number kept to letters, digits, '.', '-' and '_' (file names of the site). */
-const pdfSafe = (part: string, slug: string) => part.replace(/[^A-Za-z0-9._-]+/g, '_').replace(/^[._]+/, '') || slug;
-
-const sha256File = (path: string) => createHash('sha256').update(readFileSync(path)).digest('hex');
-
-function inputsOf(specFile: string, units: readonly LoadedUnit[], contentRoot: string): Inputs {
+/** What a page rests on: its spec file (a part or comparison file) and the measured files of its units, relative to the content folder, with their SHA-256 and the fingerprint of them all. */
+export function inputsOf(specFile: string, units: readonly LoadedUnit[], contentRoot: string): Inputs {
   const spec = { path: contentPath(contentRoot, specFile), sha256: sha256File(specFile) };
   const data = units.map((u) => ({ unit: u.unit, path: contentPath(contentRoot, u.path), sha256: u.sha256 }));
   return { spec, data, fingerprint: fingerprintOf(spec, data) };

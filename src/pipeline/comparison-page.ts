@@ -14,9 +14,7 @@ import { comparisonPlots, differencePlots } from '../plots/comparison.js';
 import { groupStyle } from '../plots/model.js';
 import type { ComparisonOutcome } from './comparison.js';
 import { plotBlocks, type PlotBlock } from './plot-blocks.js';
-import { contentPath, fingerprintOf, type Inputs } from './catalog.js';
-import { createHash } from 'node:crypto';
-import { readFileSync } from 'node:fs';
+import { inputsOf, type Inputs } from './catalog.js';
 
 export interface ComparisonCell {
   readonly text: string;
@@ -177,10 +175,6 @@ export async function buildComparisonPage(outcome: ComparisonOutcome, slug: stri
     warnings: results.flatMap((c) => c.warnings.map((w) => ({ where: c.label, message: w.message }))),
     // safe inside <script type="application/json">: no "<" can close the element
     comparisonJson: JSON.stringify(comparisonJson(cmp.title, cmp.referenceOhms, results)).replace(/</g, '\\u003c'),
-    inputs: (() => {
-      const spec = { path: contentPath(contentRoot, file), sha256: createHash('sha256').update(readFileSync(file)).digest('hex') };
-      const data = outcome.candidates.flatMap((lc) => lc.units.map((u) => ({ unit: u.unit, path: contentPath(contentRoot, u.path), sha256: u.sha256 })));
-      return { spec, data, fingerprint: fingerprintOf(spec, data) };
-    })(),
+    inputs: inputsOf(file, outcome.candidates.flatMap((lc) => lc.units), contentRoot),
   };
 }
