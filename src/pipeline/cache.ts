@@ -13,11 +13,12 @@
  * (pipeline/spill.ts), so a lookup reads a few kilobytes, not the plots.
  */
 import { createHash } from 'node:crypto';
-import { existsSync, mkdirSync, readdirSync, readFileSync, statSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { dirname, join, relative, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { writeFileAtomic } from '../io/atomic.js';
 import type { PartPage } from './catalog.js';
+import { spillPage } from './spill.js';
 
 const sha256 = (data: string | Uint8Array) => createHash('sha256').update(data).digest('hex');
 
@@ -112,22 +113,8 @@ export function openCache(dir: string, content: string, siteText: string): PartC
       const key = keyOf(partFile);
       if (!key) return;
       const inputs = Object.fromEntries(page.measurements.map((m) => [m.file, m.sha256]));
-      mkdirSync(dir, { recursive: true });
       // SVGs and the median text in files of their own beside the entry, so that reading an entry reads little
-      const plots = page.plots.map((p) => {
-        if (!p.svg) return p;
-        const file = join(dir, `${slug}-${key}-${p.id}.svg`);
-        writeFileAtomic(file, p.svg);
-        return { ...p, svg: '', svgFile: file };
-      });
-      const m = page.exports.median;
-      let median = m;
-      if (m && m.text) {
-        const file = join(dir, `${slug}-${key}-median.txt`);
-        writeFileAtomic(file, m.text);
-        median = { url: m.url, text: '', file };
-      }
-      writeFileAtomic(entryPath(slug, key), JSON.stringify({ inputs, page: { ...page, plots, exports: { ...page.exports, median } } }));
+      writeFileAtomic(entryPath(slug, key), JSON.stringify({ inputs, page: spillPage(page, dir, `${slug}-${key}`, writeFileAtomic) }));
     },
   };
 }

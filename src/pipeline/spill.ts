@@ -3,35 +3,32 @@
  * text, a few hundred kilobytes a part — kept in files of a build's own
  * temporary folder from the moment the part is built until the page is
  * written, so that a build's memory does not grow with its catalog: the page
- * models in memory hold the files' paths. The cache keeps pages whole.
+ * models in memory hold the files' paths. The cache keeps its entries' texts
+ * the same way, in files beside them.
  */
 import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { PartPage } from './catalog.js';
 
-/** The page with its SVGs and median text moved into files under dir. */
-export function spillPage(page: PartPage, dir: string): PartPage {
+/**
+ * The page with its SVGs and median text moved into files under dir, named
+ * `<stem>-<plot id>.svg` and `<stem>-median.txt` (stem: the slug, or the
+ * cache's entry name); `write` writes a file (the cache writes atomically).
+ */
+export function spillPage(page: PartPage, dir: string, stem: string = page.slug, write: (path: string, text: string) => void = writeFileSync): PartPage {
   mkdirSync(dir, { recursive: true });
   const plots = page.plots.map((p) => {
     if (!p.svg) return p;
-    const file = join(dir, `${page.slug}-${p.id}.svg`);
-    writeFileSync(file, p.svg);
+    const file = join(dir, `${stem}-${p.id}.svg`);
+    write(file, p.svg);
     return { ...p, svg: '', svgFile: file };
   });
   let median = page.exports.median;
   if (median && median.text) {
-    const file = join(dir, `${page.slug}-median.txt`);
-    writeFileSync(file, median.text);
+    const file = join(dir, `${stem}-median.txt`);
+    write(file, median.text);
     median = { url: median.url, text: '', file };
   }
-  return { ...page, plots, exports: { ...page.exports, median } };
-}
-
-/** The page whole again (for the cache). */
-export function inlinePage(page: PartPage): PartPage {
-  const plots = page.plots.map((p) => (p.svgFile ? { ...p, svg: readFileSync(p.svgFile, 'utf8'), svgFile: undefined } : p));
-  const m = page.exports.median;
-  const median = m && m.file ? { url: m.url, text: readFileSync(m.file, 'utf8') } : m;
   return { ...page, plots, exports: { ...page.exports, median } };
 }
 
