@@ -9,13 +9,12 @@ import { join, relative, resolve } from 'node:path';
 import { printable } from '../format/escape.js';
 import { planAssets } from '../io/assets.js';
 import { describeFault } from '../io/fault.js';
-import { outputRefusal, SITE_MARKER, SITE_MARKER_TEXT } from '../io/output-folder.js';
+import { outputRefusal } from '../io/output-folder.js';
 import { discard, pagesFolder, removeDeadBuilds, stagingFolder, swapInto } from '../io/swap.js';
 import { buildCatalog } from '../pipeline/build-catalog.js';
 import { partFolders } from '../pipeline/catalog.js';
 import { toolBuildId } from '../pipeline/cache.js';
-import { buildManifest, MANIFEST, manifestText } from '../archive/manifest.js';
-import { writeExports } from '../archive/exports.js';
+import { sealSite } from '../archive/seal.js';
 import { closePlotPool } from '../plots/pool.js';
 import { writeSite } from '../site/eleventy-run.js';
 import { PACKAGE_ROOT } from '../site/plugin.js';
@@ -173,8 +172,6 @@ async function buildWith(o: BuildOptions, t: Terminal, started: number, spillDir
   let pdfNote = '';
   try {
     await writeSite(o.content, site, staging.dir);
-    writeFileSync(join(staging.dir, SITE_MARKER), SITE_MARKER_TEXT);
-    writeExports(site, staging.dir, (path, text) => writeFileSync(path, text));
     if (found) {
       const report = await printAll(found, staging.dir, printJobs(site, staging.dir, packageVersion()), {
         paper: site.site.paper,
@@ -188,8 +185,8 @@ async function buildWith(o: BuildOptions, t: Terminal, started: number, spillDir
     }
     // a slice records what merge needs to join it without rendering anything again
     if (o.shard) writeFileSync(join(staging.dir, SHARD_RECORD), JSON.stringify({ format: 1, shard: o.shard, tool: toolBuildId(), version: packageVersion(), content: o.content, catalog: site }));
-    // last: the manifest hashes every file the site holds
-    writeFileSync(join(staging.dir, MANIFEST), manifestText(buildManifest(site, staging.dir, packageVersion())));
+    // last: the marker, the exports and the manifest, which hashes every file the site holds
+    sealSite(site, staging.dir, packageVersion());
     swapInto(staging);
   } catch (e) {
     discard(staging);

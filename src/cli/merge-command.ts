@@ -8,13 +8,13 @@
  * byte for byte. The output folder follows the build's rules (staged, swapped
  * in whole, only over a folder scatterbook made).
  */
-import { copyFileSync, existsSync, mkdirSync, readdirSync, readFileSync, writeFileSync, lstatSync } from 'node:fs';
+import { copyFileSync, existsSync, mkdirSync, readFileSync } from 'node:fs';
 import { dirname, join, relative, resolve } from 'node:path';
-import { writeExports } from '../archive/exports.js';
-import { buildManifest, MANIFEST, manifestText } from '../archive/manifest.js';
+import { MANIFEST, siteFiles } from '../archive/manifest.js';
+import { sealSite } from '../archive/seal.js';
 import { printable } from '../format/escape.js';
 import { describeFault } from '../io/fault.js';
-import { outputRefusal, SITE_MARKER, SITE_MARKER_TEXT } from '../io/output-folder.js';
+import { outputRefusal, SITE_MARKER } from '../io/output-folder.js';
 import { discard, removeDeadBuilds, stagingFolder, swapInto } from '../io/swap.js';
 import { toolBuildId } from '../pipeline/cache.js';
 import { assembleCatalog, readSettings, type Catalog } from '../pipeline/catalog.js';
@@ -41,19 +41,8 @@ interface ShardRecord {
 /** Files of a slice's output to copy: all but what the join makes anew. */
 const MADE_BY_MERGE = new Set(['index.html', MANIFEST, 'figures.json', 'figures.csv', SHARD_RECORD, SITE_MARKER]);
 
-function files(root: string): string[] {
-  const out: string[] = [];
-  const walk = (dir: string, rel: string) => {
-    for (const name of readdirSync(dir).sort()) {
-      const r = rel ? `${rel}/${name}` : name;
-      const st = lstatSync(join(dir, name));
-      if (st.isDirectory()) walk(join(dir, name), r);
-      else if (st.isFile() && !(rel === '' && MADE_BY_MERGE.has(name))) out.push(r);
-    }
-  };
-  walk(root, '');
-  return out;
-}
+/** A slice's files to copy (the manifest is not among siteFiles'). */
+const files = (root: string) => siteFiles(root).filter((f) => !MADE_BY_MERGE.has(f));
 
 export const mergeCommand: Command = {
   name: 'merge',
@@ -126,10 +115,8 @@ export const mergeCommand: Command = {
         }
       }
       await writeSite(content, joined, staging.dir);
-      writeFileSync(join(staging.dir, SITE_MARKER), SITE_MARKER_TEXT);
       // each part's files came with its slice (its median's text stayed on the machine that built it)
-      writeExports(whole, staging.dir, (path, text) => writeFileSync(path, text), { medians: false });
-      writeFileSync(join(staging.dir, MANIFEST), manifestText(buildManifest(whole, staging.dir, packageVersion())));
+      sealSite(whole, staging.dir, packageVersion(), { medians: false });
       swapInto(staging);
     } catch (e) {
       discard(staging);
