@@ -8,11 +8,11 @@ import { existsSync, readdirSync, statSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 import { bandsNoneCover, candidateErrors, compareCandidates, type CandidateResult } from '../compare/compare.js';
 import { baselineDifferences, rankReasons, type CandidateDifference } from '../compare/explain.js';
-import { readYamlFile, notAFile } from '../io/text-file.js';
+import { readYamlFile } from '../io/text-file.js';
 import { loadComparisonText, type CandidateSpec, type NormalizedComparison } from '../spec/comparison.js';
 import type { SpecError } from '../spec/diagnostics.js';
 import type { NormalizedPart } from '../spec/normalize.js';
-import { isInside, loadPartFile, readMeasurementFile, type LoadedUnit } from './part.js';
+import { contentFile, loadPartFile, readMeasurementFile, type LoadedUnit } from './part.js';
 
 export interface LoadedCandidate {
   readonly spec: CandidateSpec;
@@ -101,15 +101,9 @@ export async function evaluateComparisonFile(file: string, contentRoot: string, 
 
 async function loadCandidatePart(c: CandidateSpec, src: Extract<CandidateSpec['source'], { kind: 'part' }>, base: string, contentRoot: string, display: string): Promise<LoadedCandidate | { errors: SpecError[] }> {
   const at = { file: display, ...src.at };
-  const path = resolve(base, src.path);
-  if (!isInside(contentRoot, path)) return { errors: [{ code: 'path-outside', ...at, message: `part "${src.path}" of candidate "${c.label}" lies outside the content folder; files must stay inside it` }] };
-  let problem: string | null;
-  try {
-    problem = notAFile(statSync(path));
-  } catch {
-    return { errors: [{ code: 'missing-file', ...at, message: `part "${src.path}" of candidate "${c.label}" does not exist` }] };
-  }
-  if (problem) return { errors: [{ code: 'missing-file', ...at, message: `part "${src.path}" of candidate "${c.label}" ${problem}` }] };
+  const checked = contentFile(src.path, base, contentRoot, `part "${src.path}" of candidate "${c.label}"`, at);
+  if (!checked.ok) return { errors: checked.errors };
+  const path = checked.path;
   if (!/\.ya?ml$/i.test(path)) return { errors: [{ code: 'bad-value', ...at, message: `part "${src.path}" of candidate "${c.label}" is no part file (a part file is YAML, e.g. ../parts/vt-bpf-2450/part.yaml); Touchstone files go under files: or file:` }] };
   const r = await loadPartFile(path, contentRoot, src.path);
   if (!r.part) {

@@ -48,15 +48,15 @@ export function isInside(root: string, target: string): boolean {
   return within(realPath(root), realPath(target));
 }
 
-/** A measurement file, checked as every build checks it: inside the content folder, a regular file, a readable Touchstone file. */
-export function readMeasurementFile(
+/** A file a user's file names, checked as every build checks it: relative, inside the content folder, there, and a regular file. */
+export function contentFile(
   file: string,
   base: string,
   contentRoot: string,
   /** How messages name the file, e.g. measurement file "data/sn1.s2p" of unit SN1. */
   what: string,
   where: { readonly file: string; readonly line: number; readonly column: number },
-): { ok: true; path: string; value: NonNullable<ReturnType<typeof readTouchstoneFile>['value']>; bytes: number; sha256: string } | { ok: false; errors: SpecError[] } {
+): { ok: true; path: string } | { ok: false; errors: SpecError[] } {
   const path = resolve(base, file);
   const at = { file: where.file, line: where.line, column: where.column };
   if (isAbsolute(file) || !isInside(contentRoot, path)) {
@@ -69,6 +69,21 @@ export function readMeasurementFile(
     return { ok: false, errors: [{ code: 'missing-file', ...at, message: `${what} does not exist (looked for ${relative(process.cwd(), path)})` }] };
   }
   if (problem) return { ok: false, errors: [{ code: 'missing-file', ...at, message: `${what} ${problem} (${relative(process.cwd(), path)})` }] };
+  return { ok: true, path };
+}
+
+/** A measurement file, checked by contentFile, then read as Touchstone. */
+export function readMeasurementFile(
+  file: string,
+  base: string,
+  contentRoot: string,
+  /** How messages name the file, e.g. measurement file "data/sn1.s2p" of unit SN1. */
+  what: string,
+  where: { readonly file: string; readonly line: number; readonly column: number },
+): { ok: true; path: string; value: NonNullable<ReturnType<typeof readTouchstoneFile>['value']>; bytes: number; sha256: string } | { ok: false; errors: SpecError[] } {
+  const checked = contentFile(file, base, contentRoot, what, where);
+  if (!checked.ok) return checked;
+  const path = checked.path;
   const r = readTouchstoneFile(path);
   if (!r.value) {
     const fileLabel = relative(process.cwd(), path);
