@@ -13,7 +13,7 @@ import { comparisonJson } from '../compare/json.js';
 import { printable } from '../format/escape.js';
 import { bandRange, coarsestResolutionHz, trimNumber } from '../format/units.js';
 import { formatLimit, formatValue } from '../format/values.js';
-import { rankReasons } from '../compare/explain.js';
+import { bandGaps, bestMargin, gapText, rankReasons } from '../compare/explain.js';
 import { contentRootOf, evaluateComparisonFile } from '../pipeline/comparison.js';
 import { formatSpecError } from '../spec/diagnostics.js';
 import type { NormalizedPart } from '../spec/normalize.js';
@@ -63,8 +63,7 @@ function table(requirement: NormalizedPart, results: readonly CandidateResult[],
   const head = ['', 'limit', ...results.map((c) => printable(c.label))];
   const rows = requirement.checks.map((check, i) => {
     const cells = results.map((c) => c.byCheck[i]);
-    const margins = cells.flatMap((r) => (r && r.margin !== null ? [r.margin] : []));
-    const best = margins.length > 1 ? Math.max(...margins) : null;
+    const best = bestMargin(results, i);
     return [
       printable(`${check.label} ${check.on.join(' ')} over ${check.band.name}`),
       formatLimit(check.limit, check.figure.unit),
@@ -75,9 +74,7 @@ function table(requirement: NormalizedPart, results: readonly CandidateResult[],
   const visible = (x: string) => x.replace(/\x1b\[[0-9;]*m/g, '').length;
   const widths = head.map((_, i) => Math.max(head[i].length, ...rows.map((r) => visible(r[i]))));
   const line = (cells: string[]) => cells.map((c, i) => c + ' '.repeat(Math.max(0, widths[i] - visible(c)))).join('  ').trimEnd();
-  const gaps = results.flatMap((c) =>
-    [...new Map(c.gaps.map((g) => [g.band, g])).values()].map((g) => `${printable(c.label)}: ${g.coveredFromHz === null ? `no data at all in ${g.band} (${bandRange(g.fromHz, g.toHz)})` : `data cover ${bandRange(g.coveredFromHz, g.coveredToHz as number)} of ${g.band} (${bandRange(g.fromHz, g.toHz)}) only`}`),
-  );
+  const gaps = results.flatMap((c) => bandGaps(c).map((g) => `${printable(c.label)}: ${gapText(g)}`));
   return [p.bold(line(head)), ...rows.map(line), '', ...reasons.map(printable), ...(gaps.length ? ['', ...gaps] : []), '', '* the largest margin of the row; worst values over the band, PASS/FAIL against the requirement'].join('\n') + '\n';
 }
 

@@ -15,6 +15,20 @@ import { differenceTrace, medianTrace } from '../evaluate/difference.js';
 const limitName = (t: MarginEntry) => `${t.label.toLowerCase()} ${t.on.join(', ')} over ${t.band}`;
 const amount = (v: number, unit: string) => formatValue(Math.abs(v), unit);
 
+/** A candidate's gaps, one per band (the first unit's that lacks data there). */
+export const bandGaps = (c: CandidateResult) => [...new Map(c.gaps.map((g) => [g.band, g])).values()];
+
+/** Where a candidate's data leave a band uncovered, in words: "data cover 2.4 GHz to 2.47 GHz of ism (…) only". */
+export function gapText(g: CandidateResult['gaps'][number]): string {
+  return g.coveredFromHz === null ? `no data at all in ${g.band} (${bandRange(g.fromHz, g.toHz)})` : `data cover ${bandRange(g.coveredFromHz, g.coveredToHz as number)} of ${g.band} (${bandRange(g.fromHz, g.toHz)}) only`;
+}
+
+/** The largest margin of a requirement row over the candidates with a result there, or null when fewer than two have one (then nothing is "best"). */
+export function bestMargin(results: readonly CandidateResult[], check: number): number | null {
+  const margins = results.flatMap((c) => (c.byCheck[check]?.margin != null ? [c.byCheck[check]?.margin as number] : []));
+  return margins.length > 1 ? Math.max(...margins) : null;
+}
+
 /** Why each candidate ranks where it does (or is not ranked), one sentence each, in input order. */
 export function rankReasons(results: readonly CandidateResult[]): string[] {
   const ranked = results.filter((c) => c.rank !== null).sort((a, b) => (a.rank as number) - (b.rank as number));
@@ -22,7 +36,7 @@ export function rankReasons(results: readonly CandidateResult[]): string[] {
     const fails = c.byCheck.filter((r) => r && r.kind === 'limit' && r.pass === false).length;
     const failText = fails ? `; it fails ${fails} limit${fails === 1 ? '' : 's'} of the requirement` : '';
     if (c.rank === null) {
-      const gaps = [...new Map(c.gaps.map((g) => [`${g.band}`, g])).values()];
+      const gaps = bandGaps(c);
       return `${c.label}: not ranked: no data over ${gaps.map((g) => (g.coveredFromHz === null ? `all of ${g.band} (${bandRange(g.fromHz, g.toHz)})` : `${uncovered(g)} of ${g.band}`)).join(', ')}, and nothing is extrapolated`;
     }
     const first = c.tightest[0];

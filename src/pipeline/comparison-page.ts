@@ -6,6 +6,7 @@
  * provenance. Formatted for the template, which only places it.
  */
 import { relative } from 'node:path';
+import { bandGaps, bestMargin, gapText } from '../compare/explain.js';
 import { comparisonJson } from '../compare/json.js';
 import { classOf } from '../classes/registry.js';
 import { bandRange, coarsestResolutionHz, trimNumber } from '../format/units.js';
@@ -82,20 +83,17 @@ export async function buildComparisonPage(outcome: ComparisonOutcome, slug: stri
   const req = cmp.requirement;
   const results = outcome.results;
   const resolution = coarsestResolutionHz(results.flatMap((c) => c.units.map((u) => u.network.freqHz)));
-  const many = results.length > 1;
   const rows = req.checks.map((check, i) => {
-    const margins = results.map((c) => c.byCheck[i]?.margin ?? null);
-    const present = margins.filter((m): m is number => m !== null);
-    const best = present.length > 1 ? Math.max(...present) : null;
+    const best = bestMargin(results, i);
     return {
       label: check.label,
       on: check.on.join(', '),
       band: check.band.name,
       limit: formatLimit(check.limit, check.figure.unit),
-      cells: results.map((c, k): ComparisonCell => {
+      cells: results.map((c): ComparisonCell => {
         const r = c.byCheck[i];
         if (!r) return { text: 'no data', value: null, margin: '', verdict: 'NO DATA', best: false };
-        return { text: formatValue(r.worst, r.unit, resolution), value: Number.isFinite(r.worst) ? r.worst : null, margin: formatValue(r.margin, r.unit, resolution), verdict: r.pass === false ? 'FAIL' : 'PASS', best: many && best !== null && margins[k] === best };
+        return { text: formatValue(r.worst, r.unit, resolution), value: Number.isFinite(r.worst) ? r.worst : null, margin: formatValue(r.margin, r.unit, resolution), verdict: r.pass === false ? 'FAIL' : 'PASS', best: best !== null && r.margin === best };
       }),
     };
   });
@@ -118,9 +116,7 @@ export async function buildComparisonPage(outcome: ComparisonOutcome, slug: stri
       coverage: c.coverage,
       verdict: c.coverage === 'partial' ? 'NOT RANKED: partial data' : c.pass ? 'PASS' : 'FAIL',
       reason: reasonOf.get(c.label) ?? '',
-      gaps: [...new Map(c.gaps.map((g) => [g.band, g])).values()].map((g) =>
-        g.coveredFromHz === null ? `no data at all in ${g.band} (${bandRange(g.fromHz, g.toHz)})` : `data cover ${bandRange(g.coveredFromHz, g.coveredToHz as number)} of ${g.band} (${bandRange(g.fromHz, g.toHz)}) only`,
-      ),
+      gaps: bandGaps(c).map(gapText),
       source: lc.part ? `catalog part ${lc.part.part}${lc.part.revision ? `, revision ${lc.part.revision}` : ''} (${lc.spec.source.kind === 'part' ? lc.spec.source.path : ''})` : `Touchstone file${lc.units.length === 1 ? '' : 's'}`,
       portMap: lc.spec.portMap ? lc.spec.portMap.map((p, k) => `our port ${k + 1} = file port ${p}`).join(', ') : '',
       renormalized,
