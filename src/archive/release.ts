@@ -40,8 +40,9 @@ export interface ReleaseRecord {
 }
 
 /** release-<revision>.txt, the revision kept to letters, digits, '.', '-' and '_'. */
-export const recordName = (revision: string) => `release-${revision.replace(/[^A-Za-z0-9._-]+/g, '_')}.txt`;
-export const releasedFolder = (revision: string) => `released/${revision.replace(/[^A-Za-z0-9._-]+/g, '_')}`;
+const fileSafe = (revision: string) => revision.replace(/[^A-Za-z0-9._-]+/g, '_');
+export const recordName = (revision: string) => `release-${fileSafe(revision)}.txt`;
+export const releasedFolder = (revision: string) => `released/${fileSafe(revision)}`;
 
 export function figureKey(r: Pick<CheckResult, 'figure' | 'on' | 'band' | 'change'>): string {
   return `${r.figure} ${r.on.join('+')} over ${r.band}${r.change ? ` (change ${formatStages(r.change)})` : ''}`;

@@ -277,6 +277,14 @@ export function spectralNorm(src: Float64Array, off: number, n: number, work: Fl
   return Math.sqrt(Math.max(0, largestHermitianEigenvalue(work, n)));
 }
 
+/** Work vectors of largestHermitianEigenvalue, one set per size: it runs once per frequency. */
+const scratch = new Map<number, { d: Float64Array; e: Float64Array; v: Float64Array; p: Float64Array }>();
+function scratchFor(n: number) {
+  let s = scratch.get(n);
+  if (!s) scratch.set(n, (s = { d: new Float64Array(n), e: new Float64Array(Math.max(0, n - 1)), v: new Float64Array(2 * n), p: new Float64Array(2 * n) }));
+  return s;
+}
+
 /**
  * The largest eigenvalue of a Hermitian n×n matrix (interleaved re/im,
  * overwritten): Householder reduction to a tridiagonal matrix with the same
@@ -287,8 +295,7 @@ export function spectralNorm(src: Float64Array, off: number, n: number, work: Fl
  * Jacobi method that finds every eigenvalue.
  */
 export function largestHermitianEigenvalue(a: Float64Array, n: number): number {
-  const d = new Float64Array(n), e = new Float64Array(Math.max(0, n - 1));
-  const v = new Float64Array(2 * n), p = new Float64Array(2 * n);
+  const { d, e, v, p } = scratchFor(n);
   const at = (i: number, j: number) => 2 * (i * n + j);
   for (let k = 0; k < n - 2; k++) {
     // x = A[k+1…n−1][k]; reflect it onto e1: v = x − α·e1, α = −e^{i·arg x0}·‖x‖

@@ -69,8 +69,8 @@ export async function evaluateComparisonFile(file: string, contentRoot: string, 
       units.push({ unit, serial: unit, file: p, network: r.value.network, noise: r.value.noise, mixedModeOrder: r.value.info.mixedModeOrder, conditions: {}, fileAt: at, data: r.value, path: r.path, bytes: r.bytes, sha256: r.sha256 });
     });
     if (c.portMap) {
+      const top = Math.max(...c.portMap);
       for (const u of units) {
-        const top = Math.max(...c.portMap);
         if (top > u.network.ports) errors.push({ code: 'port-range', file: display, ...c.portsAt, message: `the port map of "${c.label}" names port ${top} of the file, but ${u.file} has ${u.network.ports} port${u.network.ports === 1 ? '' : 's'}` });
         else if (u.mixedModeOrder) errors.push({ code: 'bad-value', file: display, ...c.portsAt, message: `${u.file} of "${c.label}" is written in mixed-mode order; its ports are modes, which a port map cannot renumber` });
       }
@@ -119,7 +119,7 @@ export function comparisonFiles(contentRoot: string): Array<{ slug: string; file
   const dir = join(contentRoot, 'comparisons');
   if (!existsSync(dir)) return [];
   return readdirSync(dir)
-    .filter((name) => /^[A-Za-z0-9][A-Za-z0-9._-]*\.ya?ml$/.test(name) && !name.endsWith('.schema.json'))
+    .filter((name) => /^[A-Za-z0-9][A-Za-z0-9._-]*\.ya?ml$/.test(name))
     .filter((name) => {
       try {
         return statSync(join(dir, name)).isFile();
