@@ -88,6 +88,7 @@ async function compareFile(file: string, args: ReturnType<typeof parseArgs>, t: 
   }
   const c = outcome.comparison;
   const results = outcome.results;
+  for (const r of results) for (const w of r.warnings) t.stderr.write(`${formatSpecError(w, w.file === file ? outcome.source : undefined, 'warning')}\n`);
   if (args.flags.has('json')) t.stdout.write(`${JSON.stringify(comparisonJson(c.title, c.referenceOhms, results), null, 2)}\n`);
   else {
     let text = `${painter(t.stdout, t.env).bold(printable(c.title))} (every candidate at ${trimNumber(c.referenceOhms)} Ω)\n\n${table(c.requirement, results, outcome.reasons, t)}`;
@@ -135,16 +136,18 @@ export const compareCommand: Command = {
       return fail(loaded.errors.map((e) => (e.line > limitLine && limits[e.line - limitLine - 1] ? `--limit "${limits[e.line - limitLine - 1]}": ${e.message}` : e.line > 0 && e.line <= limitLine ? `--band "${band}": ${e.message}` : e.message)));
     }
     const candidates = [];
-    const errors: string[] = [];
+    let unreadable = false;
     for (const [i, f] of args.positionals.entries()) {
       const r = readTouchstoneFile(resolve(t.cwd, f));
+      for (const w of r.warnings) t.stderr.write(`${formatDiagnostic(f, w, 'warning')}\n`);
       if (!r.value) {
-        for (const e of r.errors) errors.push(formatDiagnostic(f, e));
+        for (const e of r.errors) t.stderr.write(`${formatDiagnostic(f, e, 'error')}\n`);
+        unreadable = true;
         continue;
       }
       candidates.push({ label: basename(f), units: [{ unit: basename(f), file: f, network: r.value.network, noise: r.value.noise, mixedModeOrder: r.value.info.mixedModeOrder, conditions: {}, fileAt: loaded.value.measurements[i].fileAt }] });
     }
-    if (errors.length) return fail(errors);
+    if (unreadable) return EXIT.badInput;
     const results = compareCandidates(loaded.value, candidates, reference);
     const reasons = rankReasons(results);
     const bad = results.flatMap((c) => c.errors.map((e) => `${c.label}: ${e.message}`));

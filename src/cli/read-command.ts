@@ -112,7 +112,8 @@ export function readJson(data: TouchstoneData, text?: { source: Uint8Array; toke
   const n = net.ports;
   const k = net.freqHz.length;
   const parts: string[] = [];
-  parts.push(`{"ports":${n},"version":${JSON.stringify(data.info.version)},"parameter":${JSON.stringify(data.info.parameter)},`);
+  // mixedModeOrder names the rows' modes, in the order of the matrix and of referenceOhms (null: single-ended ports 1…n)
+  parts.push(`{"ports":${n},"version":${JSON.stringify(data.info.version)},"parameter":${JSON.stringify(data.info.parameter)},"mixedModeOrder":${JSON.stringify(data.info.mixedModeOrder)},`);
   parts.push(`"frequencyHz":[${Array.from(net.freqHz, jsonNumber).join(',')}],`);
   parts.push(`"referenceOhms":[${Array.from(net.z0, jsonNumber).join(',')}],"s":[`);
   const asWritten = text && data.info.parameter === 'S' && data.info.format === 'RI' && text.tokens.length === net.s.length;
@@ -152,10 +153,13 @@ export function readSummary(name: string, data: TouchstoneData, t: Terminal): st
   const row = (label: string, text: string) => lines.push(`${label.padEnd(13)}${text}`);
   lines.push(p.bold(printable(name)));
   row('format', `Touchstone ${info.version}, ${info.parameter}-parameters as ${info.format}, frequencies in ${info.frequencyUnit}${info.parameter !== 'S' ? ' (converted to S)' : ''}`);
-  row('ports', String(net.ports) + (info.mixedModeOrder ? `, mixed-mode order ${info.mixedModeOrder.join(' ')}` : ''));
+  row('ports', String(net.ports) + (info.mixedModeOrder ? `, in mixed-mode order: the rows are the modes ${info.mixedModeOrder.join(' ')}` : ''));
   row('points', `${k}, ${formatFrequency(net.freqHz[0])} to ${formatFrequency(net.freqHz[k - 1])}`);
   const uniform = net.z0.every((r) => r === net.z0[0]);
-  row('reference', uniform ? `${trimNumber(net.z0[0])} Ω on every port` : Array.from(net.z0, (r, i) => `port ${i + 1}: ${trimNumber(r)} Ω`).join(', '));
+  // a file in mixed-mode order holds a mode per row (D1,2 differential, C1,2 common, S3 single-ended), each with its own reference
+  const modes = info.mixedModeOrder;
+  const rowName = (i: number) => (modes ? `mode ${modes[i]}` : `port ${i + 1}`);
+  row('reference', uniform ? `${trimNumber(net.z0[0])} Ω on every ${modes ? 'mode' : 'port'}` : Array.from(net.z0, (r, i) => `${rowName(i)}: ${trimNumber(r)} Ω`).join(', '));
   if (data.noise) {
     const f = data.noise.freqHz;
     row('noise', `${f.length} points, ${formatFrequency(f[0])} to ${formatFrequency(f[f.length - 1])}`);

@@ -215,7 +215,8 @@ export function evaluatePart(part: NormalizedPart, units: readonly UnitData[]): 
       errors.push(e.error);
     }
   }
-  if (errors.length) return { value: null, errors };
+  // two limits over one band that no file covers give the same message at the band's line: say it once
+  if (errors.length) return { value: null, errors: errors.filter((e, i) => errors.findIndex((o) => o.line === e.line && o.column === e.column && o.file === e.file && o.message === e.message) === i) };
   const pass = results.every((r) => r.kind !== 'limit' || r.pass === true);
   return { value: { part: part.part, revision: part.revision, pass, results, warnings }, errors };
 }
@@ -380,7 +381,8 @@ function evaluateItem(
   const set = bandSet(grid, values, ctx.band.fromHz, ctx.band.toHz);
   for (let k = 0; k < set.values.length; k++) {
     if (Number.isNaN(set.values[k])) {
-      problem('figure-undefined', `${where} has no value at ${formatFrequency(set.freqHz[k])}${fig.undefinedWhere ? `: it is not defined where ${fig.undefinedWhere}` : ''}`);
+      const why = fig.whyUndefined ? `: ${fig.whyUndefined(ctx, item, set.freqHz[k])}` : fig.undefinedWhere ? `: it is not defined where ${fig.undefinedWhere}` : '';
+      problem('figure-undefined', `${where} has no value at ${formatFrequency(set.freqHz[k])}${why}`);
     }
   }
   let lowK = 0;

@@ -6,9 +6,13 @@
  */
 import { entry } from '../network/network.js';
 import { groupDelay } from '../network/traces.js';
-import type { FigureContext, FigureDef, Item } from './types.js';
+import { FigureUndefined, type FigureContext, type FigureDef, type Item } from './types.js';
 
-const delay = (ctx: FigureContext, item: Item) => groupDelay(ctx.network.freqHz, entry(ctx.network, item.params[0].to, item.params[0].from), ctx.aperture);
+const delay = (ctx: FigureContext, item: Item) => {
+  const n = ctx.network.freqHz.length;
+  if (n < 2) throw new FigureUndefined(`group delay is the derivative of the phase over frequency, and a file of ${n} measured point has none; it needs at least two frequencies`);
+  return groupDelay(ctx.network.freqHz, entry(ctx.network, item.params[0].to, item.params[0].from), ctx.aperture);
+};
 
 export const DELAY_FIGURES: readonly FigureDef[] = [
   {

@@ -73,6 +73,8 @@ export interface FigureDef {
   defaultNominal?(ctx: { part: PartContext; band: { fromHz: number; toHz: number } }): number | undefined;
   /** Where perPoint gives NaN, the reason in words (for the error that reports it). */
   readonly undefinedWhere?: string;
+  /** The reason at one frequency where perPoint gave NaN, when it depends on the data there (replaces undefinedWhere in the error). */
+  whyUndefined?(ctx: FigureContext, item: Item, hz: number): string;
   /** trace and span: the value at every measured point (NaN where it has none). */
   perPoint?(ctx: FigureContext, item: Item): Float64Array;
   /** scalar: the value for one unit. Throws FigureUndefined where it cannot be computed. */

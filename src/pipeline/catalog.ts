@@ -18,7 +18,7 @@ import { CLASSES, classOf } from '../classes/registry.js';
 import { buildPlots } from '../plots/model.js';
 import { plotBlocks, type PlotBlock } from './plot-blocks.js';
 import type { ComparisonPage } from './comparison-page.js';
-import { formatSpecError, type SpecError } from '../spec/diagnostics.js';
+import { formatSpecError, whereOf, type SpecError } from '../spec/diagnostics.js';
 import type { NormalizedPart } from '../spec/normalize.js';
 import { cautionsFor } from '../site/cautions.js';
 import { renderMarkdown } from '../site/markdown.js';
@@ -139,8 +139,11 @@ export interface PartPage {
   readonly lots: readonly LotRow[];
   readonly ratings: ReadonlyArray<{ readonly parameter: string; readonly value: string; readonly notes: string }>;
   readonly cautions: readonly string[];
-  /** Warnings of the evaluation: where (FILE:LINE:COL, for the report and the terminal) and what. */
-  readonly warnings: ReadonlyArray<{ readonly where: string; readonly message: string }>;
+  /**
+   * Warnings, the measurement files' reader warnings first: where (FILE:LINE:COL, for the report and
+   * the terminal), what, and whether a data file's reader gave it (the datasheet shows the others only).
+   */
+  readonly warnings: ReadonlyArray<{ readonly where: string; readonly message: string; readonly fromFile: boolean }>;
   /** The JSON of `scatterbook figures --json`, for machine readers and tests. */
   readonly figuresJson: string;
   /** Exports: the site paths of the part's figures as JSON and CSV and of the median Touchstone file (null: why there is none). */
@@ -378,7 +381,7 @@ export async function buildPartPage(partFile: string, contentRoot: string, slug:
     lots: lotRows(part, result.results, outcome.units, resolution),
     ratings: part.ratings.map((r) => ({ parameter: r.parameter, value: r.value, notes: r.notes ?? '' })),
     cautions: cautionsFor(part.partClass, part.cautions),
-    warnings: result.warnings.map((w) => ({ where: `${w.file}:${w.line}:${w.column}`, message: w.message })),
+    warnings: result.warnings.map((w) => ({ where: whereOf(w), message: w.message, fromFile: w.code === 'touchstone' })),
     // safe inside <script type="application/json">: no "<" can close the element
     figuresJson: JSON.stringify(figuresJson(result)).replace(/</g, '\\u003c'),
     inputs: inputsOf(partFile, outcome.units, contentRoot),

@@ -10,7 +10,7 @@ import { bandsNoneCover, candidateErrors, compareCandidates, type CandidateResul
 import { baselineDifferences, rankReasons, type CandidateDifference } from '../compare/explain.js';
 import { readYamlFile } from '../io/text-file.js';
 import { loadComparisonText, type CandidateSpec, type NormalizedComparison } from '../spec/comparison.js';
-import type { SpecError } from '../spec/diagnostics.js';
+import type { SpecError, SpecWarning } from '../spec/diagnostics.js';
 import type { NormalizedPart } from '../spec/normalize.js';
 import { contentFile, loadPartFile, readMeasurementFile, type LoadedUnit } from './part.js';
 
@@ -19,6 +19,8 @@ export interface LoadedCandidate {
   readonly units: readonly LoadedUnit[];
   /** The catalog part it is, when it is one. */
   readonly part: NormalizedPart | null;
+  /** Reader warnings of its measurement files. */
+  readonly warnings: readonly SpecWarning[];
 }
 
 export interface ComparisonOutcome {
@@ -57,6 +59,7 @@ export async function evaluateComparisonFile(file: string, contentRoot: string, 
       continue;
     }
     const units: LoadedUnit[] = [];
+    const warnings: SpecWarning[] = [];
     const n = c.source.paths.length;
     c.source.paths.forEach((p, i) => {
       const at = (c.source as Extract<CandidateSpec['source'], { kind: 'files' }>).at[i];
@@ -65,6 +68,7 @@ export async function evaluateComparisonFile(file: string, contentRoot: string, 
         errors.push(...r.errors);
         return;
       }
+      warnings.push(...r.warnings);
       const unit = n === 1 ? c.label : `${c.label} #${i + 1}`;
       units.push({ unit, serial: unit, file: p, network: r.value.network, noise: r.value.noise, mixedModeOrder: r.value.info.mixedModeOrder, conditions: {}, fileAt: at, data: r.value, path: r.path, bytes: r.bytes, sha256: r.sha256 });
     });
@@ -75,14 +79,15 @@ export async function evaluateComparisonFile(file: string, contentRoot: string, 
         else if (u.mixedModeOrder) errors.push({ code: 'bad-value', file: display, ...c.portsAt, message: `${u.file} of "${c.label}" is written in mixed-mode order; its ports are modes, which a port map cannot renumber` });
       }
     }
-    candidates.push({ spec: c, units, part: null });
+    candidates.push({ spec: c, units, part: null, warnings });
   }
   if (errors.length) return failed(source, errors, comparison);
+  // each candidate's reader warnings come first among its warnings, as a part's do
   const results = compareCandidates(
     comparison.requirement,
     candidates.map((c) => ({ label: c.spec.label, units: c.units, portMap: c.spec.portMap, at: c.spec.at })),
     comparison.referenceOhms,
-  );
+  ).map((r, i) => (candidates[i].warnings.length ? { ...r, warnings: [...candidates[i].warnings, ...r.warnings] } : r));
   const evaluationErrors = candidateErrors(results);
   for (const band of bandsNoneCover(comparison.requirement, results)) {
     evaluationErrors.push({ code: 'band-outside-data', file: display, ...band.at, message: `no candidate has any data in band ${band.name}; a comparison there would be all extrapolation: measure it, or narrow the band` });
@@ -111,7 +116,7 @@ async function loadCandidatePart(c: CandidateSpec, src: Extract<CandidateSpec['s
     return { errors: [{ code: 'bad-value', ...at, message: `part "${src.path}" of candidate "${c.label}" is no valid part file: ${r.errors.length} error${r.errors.length === 1 ? '' : 's'}, the first ${first ? `at line ${first.line}: ${first.message}` : 'unknown'}` }] };
   }
   if (r.errors.length) return { errors: [...r.errors] };
-  return { spec: c, units: r.units, part: r.part };
+  return { spec: c, units: r.units, part: r.part, warnings: r.warnings };
 }
 
 /** The comparison files of a content folder: comparisons/<slug>.yaml, in name order. */

@@ -9,7 +9,7 @@ import { dirname, isAbsolute, relative, resolve } from 'node:path';
 import { evaluatePart, type PartResult, type UnitData } from '../evaluate/evaluate.js';
 import { loadExpressionCompiler, type ExpressionCompiler } from '../figures/expression.js';
 import { readTouchstoneFile } from '../io/touchstone-file.js';
-import type { SpecError } from '../spec/diagnostics.js';
+import type { SpecError, SpecWarning } from '../spec/diagnostics.js';
 import { loadPartText } from '../spec/load.js';
 import type { NormalizedPart } from '../spec/normalize.js';
 import type { TouchstoneData } from '../touchstone/normalize.js';
@@ -29,6 +29,8 @@ export interface PartOutcome {
   readonly units: readonly LoadedUnit[];
   readonly result: PartResult | null;
   readonly errors: readonly SpecError[];
+  /** The measurement files' reader warnings (they are also the first of result.warnings). */
+  readonly warnings: readonly SpecWarning[];
 }
 
 let compiler: Promise<ExpressionCompiler> | null = null;
@@ -80,16 +82,15 @@ export function readMeasurementFile(
   /** How messages name the file, e.g. measurement file "data/sn1.s2p" of unit SN1. */
   what: string,
   where: { readonly file: string; readonly line: number; readonly column: number },
-): { ok: true; path: string; value: NonNullable<ReturnType<typeof readTouchstoneFile>['value']>; bytes: number; sha256: string } | { ok: false; errors: SpecError[] } {
+): { ok: true; path: string; value: NonNullable<ReturnType<typeof readTouchstoneFile>['value']>; bytes: number; sha256: string; warnings: SpecWarning[] } | { ok: false; errors: SpecError[] } {
   const checked = contentFile(file, base, contentRoot, what, where);
   if (!checked.ok) return checked;
   const path = checked.path;
   const r = readTouchstoneFile(path);
-  if (!r.value) {
-    const fileLabel = relative(process.cwd(), path);
-    return { ok: false, errors: r.errors.map((e) => ({ code: 'touchstone' as const, file: fileLabel, line: e.line, column: e.column ?? (e.line ? 1 : 0), message: e.message })) };
-  }
-  return { ok: true, path, value: r.value, bytes: r.bytes, sha256: r.sha256 };
+  const fileLabel = relative(process.cwd(), path);
+  const positioned = (d: { line: number; column?: number; message: string }) => ({ code: 'touchstone' as const, file: fileLabel, line: d.line, column: d.column ?? (d.line ? 1 : 0), message: d.message });
+  if (!r.value) return { ok: false, errors: r.errors.map(positioned) };
+  return { ok: true, path, value: r.value, bytes: r.bytes, sha256: r.sha256, warnings: r.warnings.map(positioned) };
 }
 
 export interface LoadedPartFile {
@@ -97,6 +98,8 @@ export interface LoadedPartFile {
   readonly part: NormalizedPart | null;
   readonly units: readonly LoadedUnit[];
   readonly errors: readonly SpecError[];
+  /** Reader warnings of the measurement files, in the order of the measurements. */
+  readonly warnings: readonly SpecWarning[];
 }
 
 /**
@@ -108,15 +111,16 @@ export interface LoadedPartFile {
  */
 export async function loadPartFile(partFile: string, contentRoot: string, displayName = partFile): Promise<LoadedPartFile> {
   const read = readYamlFile(partFile, displayName);
-  if (!read.ok) return { source: '', part: null, units: [], errors: [read.error] };
+  if (!read.ok) return { source: '', part: null, units: [], errors: [read.error], warnings: [] };
   const source = read.text;
   let loaded = loadPartText(source, displayName);
   // custom figures need the expression compiler (mathjs), loaded only for the parts that have them
   if (loaded.needsCompiler) loaded = loadPartText(source, displayName, await (compiler ??= loadExpressionCompiler()));
-  if (!loaded.value) return { source, part: null, units: [], errors: loaded.errors };
+  if (!loaded.value) return { source, part: null, units: [], errors: loaded.errors, warnings: [] };
   const part = loaded.value;
   const base = dirname(partFile);
   const errors: SpecError[] = [];
+  const warnings: SpecWarning[] = [];
   const units: LoadedUnit[] = [];
   for (const m of part.measurements) {
     const r = readMeasurementFile(m.file, base, contentRoot, `measurement file "${m.file}" of unit ${m.unit}`, { file: displayName, ...m.fileAt });
@@ -124,21 +128,24 @@ export async function loadPartFile(partFile: string, contentRoot: string, displa
       errors.push(...r.errors);
       continue;
     }
+    warnings.push(...r.warnings);
     units.push({ unit: m.label, serial: m.unit, file: m.file, network: r.value.network, noise: r.value.noise, mixedModeOrder: r.value.info.mixedModeOrder, conditions: m.conditions, fileAt: m.fileAt, data: r.value, path: r.path, bytes: r.bytes, sha256: r.sha256 });
   }
-  return { source, part, units, errors };
+  return { source, part, units, errors, warnings };
 }
 
 /** loadPartFile, then the part's figures. */
 export async function evaluatePartFile(partFile: string, contentRoot: string, displayName = partFile, times?: StageTimes): Promise<PartOutcome> {
   const t0 = performance.now();
-  const { source, part, units, errors } = await loadPartFile(partFile, contentRoot, displayName);
-  if (!part || errors.length) return { source, part, units, result: null, errors };
+  const { source, part, units, errors, warnings } = await loadPartFile(partFile, contentRoot, displayName);
+  if (!part || errors.length) return { source, part, units, result: null, errors, warnings };
   const t1 = performance.now();
   const evaluated = evaluatePart(part, units);
   if (times) {
     times.read += t1 - t0;
     times.figures += performance.now() - t1;
   }
-  return { source, part, units, result: evaluated.value, errors: evaluated.errors };
+  // the reader's warnings come first among the result's: figures, the build and both pages show them with the evaluation's
+  const result = evaluated.value && warnings.length ? { ...evaluated.value, warnings: [...warnings, ...evaluated.value.warnings] } : evaluated.value;
+  return { source, part, units, result, errors: evaluated.errors, warnings };
 }

@@ -33,6 +33,9 @@ export type TouchstoneWarningCode =
   | 'comment-impedance'
   | 'extension-mismatch'
   | 'ignored-keyword'
+  | 'missing-two-port-order'
+  | 'missing-end'
+  | 'missing-noise-data'
   | 'cr-line-ends';
 
 export interface TouchstoneDiagnostic<Code extends string = TouchstoneErrorCode | TouchstoneWarningCode> {

@@ -405,7 +405,11 @@ export class TouchstoneParser {
     const h = this.header;
     this.version = h.version as Version;
     if (h.ports === null) fail('missing-keyword', this.line, '[Network Data] before [Number of Ports]; a version 2 file must declare [Number of Ports]');
-    if (h.ports === 2 && h.twoPortOrder === null) fail('missing-keyword', this.line, 'a version 2 file with 2 ports must declare [Two-Port Data Order] 12_21 or 21_12 before [Network Data]');
+    if (h.ports === 2 && h.twoPortOrder === null) {
+      // required by the standard, yet its own Example 20 goes without: read in version 1's order, which the omission implies
+      h.twoPortOrder = '21_12';
+      this.warnings.push({ code: 'missing-two-port-order', line: this.line, message: 'a version 2 file with 2 ports must declare [Two-Port Data Order] before [Network Data]; read as 21_12 (N11 N21 N12 N22), the order of version 1' });
+    }
     if (h.frequencies === null) fail('missing-keyword', this.line, '[Network Data] before [Number of Frequencies]; a version 2 file must declare it');
     if (h.pendingReference) fail('keyword-value', this.line, `[Reference] holds ${(h.reference as number[]).length} values before [Network Data]; expected ${h.ports}, one per port`);
     if (this.opts.fileName) {
@@ -587,6 +591,17 @@ export class TouchstoneParser {
   }
 
   private badNumber(buf: Uint8Array, from: number, to: number, lineStart: number): never {
+    let first = lineStart;
+    while (first < from && isBlank(buf[first])) first++;
+    const c = buf[from] | 32;
+    if (first === from && c >= 97 && c <= 122) {
+      // a line that starts with a word is prose (a note pasted in, a footer, the start of a page of text), not a bad value
+      let end = from;
+      while (end < buf.length && buf[end] !== 10 && buf[end] !== 13 && end - from < 60) end++;
+      const text = latin1(buf, from, end).trim();
+      const cut = this.pos > 0 ? `; the point that starts at line ${this.pointLine} has ${this.pos} of its ${this.recordSize} values, so the data end here cut short` : '';
+      fail('bad-number', this.line, `this line is text, not data ("${text}${end - from >= 60 ? '…' : ''}"); a comment starts with "!"${cut}`, from - lineStart + 1);
+    }
     fail('bad-number', this.line, `"${latin1(buf, from, to)}" is not a number; expected a value such as 0.5, -12.25 or 1.5e-3`, from - lineStart + 1);
   }
 
@@ -624,17 +639,28 @@ export class TouchstoneParser {
 
   private complete(): TouchstoneRecord {
     if (this.phase === 'start' || (this.phase === 'v1' && !this.layout)) {
-      if (!this.options) fail('missing-option-line', 0, 'the file holds no option line and no data; expected a Touchstone file ("# GHz S MA R 50" followed by the data)');
-      fail('no-data', 0, 'the file holds no network data');
+      if (!this.options) fail('missing-option-line', 0, `the file holds no option line and no data (it ends at line ${this.line}); expected a Touchstone file ("# GHz S MA R 50" followed by the data)`);
+      fail('no-data', 0, `the file holds no network data: it ends at line ${this.line}, and nothing after the option line (line ${this.options.line}) is data`);
     }
     if (this.phase === 'header' || this.phase === 'information') fail('missing-keyword', 0, 'the version 2 file has no [Network Data]');
     if (this.phase === 'network') {
+      const declared = this.header.frequencies as number;
+      if (this.version !== '1.1' && this.count + (this.pos > 0 ? 1 : 0) < declared) {
+        fail('frequency-count', 0, `the file ends at line ${this.line}, without [End], after ${this.count} of the ${declared} points [Number of Frequencies] declares${this.pos ? ` and ${this.pos} of the ${this.recordSize} values of the next` : ''}: it looks cut short`);
+      }
       if (this.version === '1.1') {
         if (this.pos !== 0) this.incompletePoint();
       } else this.closeNetwork();
     }
     if (this.noise) this.closeNoise();
     if (this.count === 0) fail('no-data', 0, 'the file holds no network data points');
+    if (this.version !== '1.1') {
+      // the counts of [Number of Frequencies] (and of noise frequencies) held, so the data are whole without these
+      if (this.header.noiseFrequencies !== null && !this.noise) {
+        this.warnings.push({ code: 'missing-noise-data', line: 0, message: `[Number of Noise Frequencies] declares ${this.header.noiseFrequencies} noise points, but the file has no [Noise Data]; read without noise parameters` });
+      }
+      if (this.phase !== 'end') this.warnings.push({ code: 'missing-end', line: 0, message: `the version 2 file ends at line ${this.line} without [End], which the standard requires; its data hold the ${this.count} points [Number of Frequencies] declares, so they are read` });
+    }
     const opt = this.options as OptionLine;
     const n = this.ports;
     const ref = this.header.reference ?? (opt.resistance.length === n ? opt.resistance : Array(n).fill(opt.resistance[0] ?? 50));

@@ -9,6 +9,6 @@ for _a in ("int", "float", "complex", "bool", "object"):  # aliases numpy remove
 import skrf as rf
 n = rf.Network(sys.argv[1])
 s = n.s
-out = {"ports": n.nports, "version": "1.1", "parameter": "S", "frequencyHz": n.f.tolist(), "referenceOhms": n.z0[0].real.tolist(),
+out = {"ports": n.nports, "version": "1.1", "parameter": "S", "mixedModeOrder": None, "frequencyHz": n.f.tolist(), "referenceOhms": n.z0[0].real.tolist(),
        "s": [[[[v.real, v.imag] for v in row] for row in m] for m in s], "noise": None}
 sys.stdout.write(json.dumps(out))

@@ -32,6 +32,7 @@ describe('scatterbook read', () => {
       ports: 2,
       version: '1.1',
       parameter: 'S',
+      mixedModeOrder: null,
       frequencyHz: [1e9, 1.1e9],
       referenceOhms: [50, 50],
       s: [
@@ -40,6 +41,18 @@ describe('scatterbook read', () => {
       ],
       noise: null,
     });
+  });
+
+  it('a file in mixed-mode order says so: mixedModeOrder in --json names the rows, and the summary labels the references by mode (Touchstone 2.0 [Mixed-Mode Order])', () => {
+    writeFileSync(join(dir, 'modes.ts'), '[Version] 2.0\n# GHz S RI R 50\n[Number of Ports] 4\n[Number of Frequencies] 1\n[Reference] 50 50 75 75\n[Mixed-Mode Order] D1,2 D3,4 C1,2 C3,4\n[Network Data]\n1 ' + '0 0 '.repeat(16) + '\n[End]\n');
+    const j = JSON.parse(run('read', 'modes.ts', '--json').stdout);
+    expect(j.mixedModeOrder).toEqual(['D1,2', 'D3,4', 'C1,2', 'C3,4']);
+    // differential 2R, common R/2 of the pair's single-ended references
+    expect(j.referenceOhms).toEqual([100, 150, 25, 37.5]);
+    const text = run('read', 'modes.ts').stdout;
+    expect(text).toContain('ports        4, in mixed-mode order: the rows are the modes D1,2 D3,4 C1,2 C3,4');
+    expect(text).toContain('reference    mode D1,2: 100 Ω, mode D3,4: 150 Ω, mode C1,2: 25 Ω, mode C3,4: 37.5 Ω');
+    expect(text).not.toContain('port 1:');
   });
 
   it('--json copies numbers of an RI S-parameter file as written where they are JSON numbers, and formats the rest: the same values either way', () => {

@@ -141,7 +141,54 @@ describe('stability (textbook worked examples, from memory: Gonzalez, Microwave 
     const r = evaluateYaml(yaml, { U1: amp([0.5, 30], [4, 100], [0, 0], [0.8, -40]) });
     expect(r.result).toBeNull();
     expect(r.errors[0].code).toBe('figure-undefined');
-    expect(r.errors[0].message).toContain('stability-k on S11/S21/S12/S22 in unit U1 (U1.s4p) has no value at 1 GHz: it is not defined where S12·S21 = 0');
+    expect(r.errors[0].message).toContain('stability-k on S11/S21/S12/S22 in unit U1 (U1.s4p) has no value at 1 GHz: S12·S21 = 0 at 1 GHz (no reverse transmission), where K has no value; stability-mu is defined there (μ = 1.25)');
+  });
+
+  it('where S12·S21 = 0 and |S11| = 1, the K message does not send the reader to μ, which has no value there either', () => {
+    const r = evaluateYaml(yaml, { U1: amp([1, 30], [4, 100], [0, 0], [0.8, -40]) });
+    expect(r.errors[0].message).toContain('where K has no value; stability-mu has none there either');
+  });
+
+  /*
+   * A lossless ladder: a 5-pole Butterworth lowpass at 1 GHz (g = 0.618, 1.618, 2, 1.618, 0.618;
+   * series L = g·Z0/ωc, shunt C = g/(Z0·ωc), Matthaei, Young & Jones, from memory), its S from the
+   * chain (ABCD) matrix (Pozar table 4.2, from memory) up to 80 GHz, where |S21| ≈ 3e-10. Any
+   * lossless reciprocal 2-port has K = 1, |Δ| = 1 and μ = 1 at every frequency (S unitary: K's
+   * numerator is 2|S12·S21|); written as 1 − |S11|² − |S22|² + |Δ|², K cancels there to noise.
+   */
+  it('a lossless ladder has K = 1 and |Δ| = 1 at every point, deep into the stopband (the textbook form gave K = −388 here)', () => {
+    const Z0 = 50, wc = 2 * Math.PI * 1e9, g = [0.618, 1.618, 2, 1.618, 0.618];
+    const freqs = Array.from({ length: 121 }, (_, k) => 1e8 * Math.pow(800, k / 120));
+    type C = [number, number];
+    const mul = (a: C, b: C): C => [a[0] * b[0] - a[1] * b[1], a[0] * b[1] + a[1] * b[0]];
+    const add = (a: C, b: C): C => [a[0] + b[0], a[1] + b[1]];
+    const div = (a: C, b: C): C => { const d = b[0] * b[0] + b[1] * b[1]; return [(a[0] * b[0] + a[1] * b[1]) / d, (a[1] * b[0] - a[0] * b[1]) / d]; };
+    const chain = (m: C[][], n: C[][]): C[][] => [[add(mul(m[0][0], n[0][0]), mul(m[0][1], n[1][0])), add(mul(m[0][0], n[0][1]), mul(m[0][1], n[1][1]))], [add(mul(m[1][0], n[0][0]), mul(m[1][1], n[1][0])), add(mul(m[1][0], n[0][1]), mul(m[1][1], n[1][1]))]];
+    let deepest = 1;
+    const net = networkOf(freqs, Z0, (f) => {
+      const w = 2 * Math.PI * f;
+      let abcd: C[][] = [[[1, 0], [0, 0]], [[0, 0], [1, 0]]];
+      g.forEach((gk, k) => {
+        const el: C[][] = k % 2 === 0 ? [[[1, 0], [0, (w * gk * Z0) / wc]], [[0, 0], [1, 0]]] : [[[1, 0], [0, 0]], [[0, (w * gk) / (Z0 * wc)], [1, 0]]];
+        abcd = chain(abcd, el);
+      });
+      const [[A, B], [Cc, D]] = abcd;
+      const bz = div(B, [Z0, 0]), cz = mul(Cc, [Z0, 0]);
+      const den = add(add(A, bz), add(cz, D));
+      const s11 = div([A[0] + bz[0] - cz[0] - D[0], A[1] + bz[1] - cz[1] - D[1]], den);
+      const s22 = div([-A[0] + bz[0] - cz[0] + D[0], -A[1] + bz[1] - cz[1] + D[1]], den);
+      const s21 = div([2, 0], den);
+      deepest = Math.min(deepest, Math.hypot(...s21));
+      return [[s11, s21], [s21, s22]];
+    });
+    expect(deepest).toBeLessThan(1e-9);
+    const wide = '  b: {from: 100 MHz, to: 80 GHz}';
+    const r = first(partYaml({ cls: 'filter', units: ['U1'], bands: wide, limits: '  - {figure: stability-k, band: b, min: 1}\n  - {figure: stability-delta, band: b, max: 1.000001}' }), { U1: net });
+    expectClose(r[0].worst, 1, 1e-9, 'K of a lossless network (worst over 0.1–80 GHz)');
+    expectClose(r[1].worst, 1, 1e-12, '|Δ| of a lossless network');
+    // μ = (1 − |S11|²)/…: its numerator is resolved to about 1e-16 only, so μ is checked where |S21|² ≥ 1e-6
+    const pass = first(partYaml({ cls: 'filter', units: ['U1'], bands: '  b: {from: 100 MHz, to: 3 GHz}', limits: '  - {figure: stability-mu, band: b, min: 0.5}' }), { U1: net });
+    expectClose(pass[0].worst, 1, 1e-9, 'μ of a lossless network up to 3 GHz (|S21| there ≈ 4e-3)');
   });
 
   it('other port pairs: ports: [3, 1] reads S33, S13, S31, S11', () => {

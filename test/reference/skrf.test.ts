@@ -28,6 +28,8 @@ import { resultsOf } from '../helpers.js';
 import { PREREQUISITES, PYTHON } from '../support/prerequisites.js';
 
 const SKRF_DIR = '/usr/lib/python3/dist-packages/skrf';
+/** Copies of some of those files kept in the repository with their licence (test/data/outside/scikit-rf/ORIGIN.md). */
+const OUTSIDE_DIR = join(import.meta.dirname, '../data/outside/scikit-rf');
 const DUMP = join(import.meta.dirname, 'skrf_dump.py');
 const skrfAvailable = () => (PREREQUISITES.find((p) => p.name === 'scikit-rf') as (typeof PREREQUISITES)[number]).present();
 
@@ -118,7 +120,7 @@ beforeAll(() => {
   if (!available) return;
   const dir = mkdtempSync(join(tmpdir(), 'scatterbook-skrf-'));
   writeCorpus(dir);
-  const files = [...walk(SKRF_DIR), ...generated];
+  const files = [...walk(SKRF_DIR), ...walk(OUTSIDE_DIR), ...generated];
   const out = execFileSync(PYTHON, [DUMP, ...files], { maxBuffer: 1 << 30, stdio: ['ignore', 'pipe', 'ignore'] }).toString();
   const parsed = JSON.parse(out) as { version: string; files: Ref[] };
   skrfVersion = parsed.version;

@@ -89,12 +89,6 @@ describe('errors name the line and what was expected', () => {
     expect(bad('# GHz S RI\n[Number of Ports] 2\n')).toMatchObject({ code: 'unknown-keyword', line: 2 });
   });
 
-  it('a version 2 2-port without [Two-Port Data Order]', () => {
-    const e = bad(v2('[Number of Ports] 2\n[Number of Frequencies] 1\n[Network Data]\n1 0 0 0 0 0 0 0 0\n'), 'a.ts');
-    expect(e).toMatchObject({ code: 'missing-keyword', line: 5 });
-    expect(e.message).toContain('[Two-Port Data Order] 12_21 or 21_12');
-  });
-
   it('H-parameters on a 3-port', () => {
     expect(bad('# GHz H RI\n1 ' + '0 0 '.repeat(9) + '\n', 'a.s3p')).toMatchObject({ code: 'parameter-ports', line: 1 });
   });
