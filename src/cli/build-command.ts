@@ -12,6 +12,7 @@ import { describeFault } from '../io/fault.js';
 import { outputRefusal } from '../io/output-folder.js';
 import { discard, pagesFolder, removeDeadBuilds, stagingFolder, swapInto } from '../io/swap.js';
 import { buildCatalog } from '../pipeline/build-catalog.js';
+import type { Catalog } from '../pipeline/catalog.js';
 import { partFolders } from '../pipeline/catalog.js';
 import { toolBuildId } from '../pipeline/cache.js';
 import { sealSite } from '../archive/seal.js';
@@ -82,7 +83,7 @@ export function buildOptionsOf(args: ParsedArgs, t: Terminal): BuildOptions & { 
 }
 
 export interface BuildOutcome {
-  readonly code: 0 | 1;
+  readonly code: 0 | 1 | 4;
   readonly parts: number;
   /** Parts left out with errors. */
   readonly failed: number;
@@ -125,6 +126,9 @@ async function buildAndPublish(o: BuildOptions, t: Terminal, started: number): P
   }
 }
 
+/** A part met a bug of scatterbook (exit 4, even when --keep-going published the others). */
+const internalFault = (catalog: Catalog) => catalog.failures.some((f) => f.internal);
+
 async function buildWith(o: BuildOptions, t: Terminal, started: number, spillDir: string): Promise<BuildOutcome> {
   const p = painter(t.stderr, t.env);
   const bar = progress(t);
@@ -148,7 +152,7 @@ async function buildWith(o: BuildOptions, t: Terminal, started: number, spillDir
     const files = catalog.failures.length + siteErrors.length;
     const why = catalog.parts.length === 0 && !catalog.failures.length && !siteErrors.length ? `no parts found: expected ${rel(join(o.content, 'parts'))}/<slug>/part.yaml` : `${files} file${files === 1 ? '' : 's'} with errors`;
     t.stderr.write(`${p.red('error:')} ${why}; nothing was written (${rel(o.out)} is unchanged)${catalog.failures.length && !o.keepGoing ? '; --keep-going publishes the parts that build' : ''}\n`);
-    return { code: 1, parts: catalog.parts.length, failed: catalog.failures.length, failing: 0, ms: performance.now() - started };
+    return { code: internalFault(catalog) ? EXIT.internal : 1, parts: catalog.parts.length, failed: catalog.failures.length, failing: 0, ms: performance.now() - started };
   }
   // PDFs need a browser; look for it before the pages are written, since they link their PDFs
   let found: FoundBrowser | null = null;
@@ -208,7 +212,7 @@ async function buildWith(o: BuildOptions, t: Terminal, started: number, spillDir
   t.stdout.write(
     `built ${o.shard ? `slice ${o.shard.k}/${o.shard.n}: ` : ''}${catalog.parts.length} part${catalog.parts.length === 1 ? '' : 's'}${catalog.comparisons.length ? ` and ${catalog.comparisons.length} comparison${catalog.comparisons.length === 1 ? '' : 's'}` : ''}${pdfNote}${failed ? `, ${failed} left out with errors` : ''}${built.cacheHits ? ` (${built.cacheHits} unchanged, from the cache)` : ''} into ${rel(o.out)}/ in ${(ms / 1000).toFixed(1)} s; open ${rel(join(o.out, 'index.html'))}\n`,
   );
-  return { code: failed ? 1 : 0, parts: catalog.parts.length, failed, failing, ms };
+  return { code: internalFault(catalog) ? EXIT.internal : failed ? 1 : 0, parts: catalog.parts.length, failed, failing, ms };
 }
 
 export const buildCommand: Command = {
@@ -218,7 +222,7 @@ export const buildCommand: Command = {
   async run(argv, t) {
     const o = buildOptions(argv, t);
     const r = await runBuild(o, t);
-    if (r.code !== 0) return EXIT.badInput;
+    if (r.code !== 0) return r.code === EXIT.internal ? EXIT.internal : EXIT.badInput;
     return o.flags.has('strict') && r.failing > 0 ? EXIT.limitFailed : EXIT.ok;
   },
 };

@@ -13,6 +13,22 @@ import { comparisonFiles, evaluateComparisonFile } from './comparison.js';
 import { spillPage } from './spill.js';
 import { buildComparisonPage, type ComparisonPage } from './comparison-page.js';
 
+/**
+ * buildPartPage, with a bug met on one part's way (an exception that is no fault of the machine, such as
+ * a full disk, which stops the build) turned into that part's failure, so that --keep-going publishes the
+ * others and lists it; the build still exits 4 and asks for a report.
+ */
+async function buildPartSafely(...args: Parameters<typeof buildPartPage>): Promise<Awaited<ReturnType<typeof buildPartPage>>> {
+  try {
+    return await buildPartPage(...args);
+  } catch (e) {
+    if ((e as NodeJS.ErrnoException).code) throw e;
+    const file = relative(process.cwd(), args[0]) || args[0];
+    const what = e instanceof Error ? e.stack ?? e.message : String(e);
+    return { page: null, failure: { slug: args[2], file, internal: true, messages: [`${file}: internal error while building this part (a bug in scatterbook; please report it with this part file and its data):\n${what}`] } };
+  }
+}
+
 export interface BuildCatalogOptions {
   readonly cacheDir?: string | null;
   readonly version: string;
@@ -58,7 +74,7 @@ export async function buildCatalog(contentRoot: string, options: BuildCatalogOpt
         results[i] = { page: spill(cached), failure: null };
         hits++;
       } else {
-        const b = await buildPartPage(file, contentRoot, slug, settings, options.times);
+        const b = await buildPartSafely(file, contentRoot, slug, settings, options.times);
         if (b.page && cache) cache.write(slug, file, b.page);
         results[i] = b.page ? { page: spill(b.page), failure: null } : b;
       }

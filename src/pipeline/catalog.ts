@@ -176,6 +176,8 @@ export interface PartFailure {
   readonly slug: string;
   readonly file: string;
   readonly messages: readonly string[];
+  /** A bug of scatterbook met while building the part, not a fault of its files (the build exits 4). */
+  readonly internal?: boolean;
 }
 
 export interface Catalog {

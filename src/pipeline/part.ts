@@ -2,7 +2,7 @@
  * One part from disk: its YAML, its measured files, its figures. The only
  * stage that touches files for a part; everything it calls is pure.
  */
-import { statSync } from 'node:fs';
+import { lstatSync, readlinkSync, statSync } from 'node:fs';
 import { realPath, within } from '../io/output-folder.js';
 import { notAFile, readYamlFile } from '../io/text-file.js';
 import { dirname, isAbsolute, relative, resolve } from 'node:path';
@@ -67,11 +67,23 @@ export function contentFile(
   let problem: string | null;
   try {
     problem = notAFile(statSync(path));
-  } catch {
-    return { ok: false, errors: [{ code: 'missing-file', ...at, message: `${what} does not exist (looked for ${relative(process.cwd(), path)})` }] };
+  } catch (e) {
+    return { ok: false, errors: [{ code: 'missing-file', ...at, message: `${what} ${whyNotThere(path, (e as NodeJS.ErrnoException).code)} (looked for ${relative(process.cwd(), path)})` }] };
   }
   if (problem) return { ok: false, errors: [{ code: 'missing-file', ...at, message: `${what} ${problem} (${relative(process.cwd(), path)})` }] };
   return { ok: true, path };
+}
+
+/** Why a path that cannot be stat'ed is not there: missing, a link to nothing, a loop of links, or not readable. */
+function whyNotThere(path: string, code: string | undefined): string {
+  if (code === 'ELOOP') return 'is a symbolic link that leads round in a loop';
+  if (code === 'EACCES') return 'cannot be reached (permission denied)';
+  try {
+    if (lstatSync(path).isSymbolicLink()) return `is a symbolic link to ${readlinkSync(path)}, which does not exist`;
+  } catch {
+    // not even the link is there
+  }
+  return 'does not exist';
 }
 
 /** A measurement file, checked by contentFile, then read as Touchstone. */

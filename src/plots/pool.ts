@@ -10,6 +10,9 @@ import { Worker } from 'node:worker_threads';
 import type { PlotModel } from './model.js';
 import { renderPlot } from './render.js';
 
+/** The old-generation cap of each plot worker, in MB (SCATTERBOOK_WORKER_HEAP_MB sets another). */
+const WORKER_HEAP_MB = Number(process.env.SCATTERBOOK_WORKER_HEAP_MB) >= 64 ? Number(process.env.SCATTERBOOK_WORKER_HEAP_MB) : 256;
+
 interface Job {
   readonly resolve: (svg: string) => void;
   readonly reject: (e: Error) => void;
@@ -23,7 +26,8 @@ class Pool {
 
   constructor(size: number, url: URL) {
     for (let i = 0; i < size; i++) {
-      const w = new Worker(url);
+      // a plot worker's live data are a few megabytes; without a cap V8 lets its heap grow with the garbage of thousands of plots
+      const w = new Worker(url, { resourceLimits: { maxOldGenerationSizeMb: WORKER_HEAP_MB } });
       w.unref();
       w.on('message', (msg: { svg?: string; error?: string }) => {
         const job = this.running.get(w);

@@ -639,6 +639,7 @@ export class TouchstoneParser {
 
   private complete(): TouchstoneRecord {
     if (this.phase === 'start' || (this.phase === 'v1' && !this.layout)) {
+      if (this.bytesSeen === 0) fail('no-data', 0, 'the file is empty (0 bytes); expected a Touchstone file ("# GHz S MA R 50" followed by the data)');
       if (!this.options) fail('missing-option-line', 0, `the file holds no option line and no data (it ends at line ${this.line}); expected a Touchstone file ("# GHz S MA R 50" followed by the data)`);
       fail('no-data', 0, `the file holds no network data: it ends at line ${this.line}, and nothing after the option line (line ${this.options.line}) is data`);
     }
