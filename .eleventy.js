@@ -1,25 +1,18 @@
-// Eleventy configuration of scatterbook: it only adds our plugin. A plain
-// `npx @11ty/eleventy` here builds the demo catalog (content/, or the folder in
-// SCATTERBOOK_CONTENT) into _site/, the same site `scatterbook build` makes;
-// `scatterbook build` uses this file too, handing over the catalog it has
-// already computed. The plugin is compiled to dist/ by `npm ci` (prepare).
+// Eleventy configuration for a plain `npx @11ty/eleventy` here: it builds the
+// demo catalog (content/, or the folder in SCATTERBOOK_CONTENT) into _site/
+// (or SCATTERBOOK_OUT), the same site `scatterbook build` makes. `scatterbook
+// build` does not read this file: it hands its own catalog to the plugin
+// (src/site/eleventy-run.ts). The plugin is compiled to dist/ by `npm ci` (prepare).
 import { readFileSync } from 'node:fs';
 import { buildCatalog } from './dist/pipeline/build-catalog.js';
-import { handedCatalog, PAGES_DIR, scatterbookSite } from './dist/site/plugin.js';
+import { PAGES_DIR, scatterbookSite } from './dist/site/plugin.js';
 
 const version = JSON.parse(readFileSync(new URL('./package.json', import.meta.url), 'utf8')).version;
 
 export default function (eleventyConfig) {
-  const handed = handedCatalog();
-  if (handed) eleventyConfig.setQuietMode(true); // scatterbook build prints its own summary
-  const content = handed?.content ?? process.env.SCATTERBOOK_CONTENT ?? 'content';
+  const content = process.env.SCATTERBOOK_CONTENT ?? 'content';
   const cacheDir = process.env.SCATTERBOOK_CACHE ?? null;
-  scatterbookSite(eleventyConfig, {
-    content,
-    // without a handed-over catalog (a plain run, or scatterbook serve) it is computed at each build
-    catalog: handed?.catalog ?? (async () => (await buildCatalog(content, { version, cacheDir })).catalog),
-  });
-  // a plain run writes _site/ (or SCATTERBOOK_OUT); scatterbook build names its own (temporary) folder
-  const output = process.env.SCATTERBOOK_OUT ?? '_site';
-  return { dir: handed ? { input: PAGES_DIR } : { input: PAGES_DIR, output }, templateFormats: ['njk'] };
+  // the catalog is computed at each build (scatterbook serve has its own watcher and builds through scatterbook build's path)
+  scatterbookSite(eleventyConfig, { content, catalog: async () => (await buildCatalog(content, { version, cacheDir })).catalog });
+  return { dir: { input: PAGES_DIR, output: process.env.SCATTERBOOK_OUT ?? '_site' }, templateFormats: ['njk'] };
 }

@@ -28,7 +28,6 @@ class Pool {
     for (let i = 0; i < size; i++) {
       // a plot worker's live data are a few megabytes; without a cap V8 lets its heap grow with the garbage of thousands of plots
       const w = new Worker(url, { resourceLimits: { maxOldGenerationSizeMb: WORKER_HEAP_MB } });
-      w.unref();
       w.on('message', (msg: { svg?: string; error?: string }) => {
         const job = this.running.get(w);
         this.running.delete(w);
@@ -36,6 +35,7 @@ class Pool {
           if (msg.error !== undefined) job.reject(new Error(msg.error));
           else job.resolve(msg.svg as string);
         }
+        w.unref();
         this.idle.push(w);
         this.next();
       });
@@ -44,6 +44,9 @@ class Pool {
         this.running.delete(w);
         job?.reject(e);
       });
+      // a busy worker keeps the process alive, an idle one does not (a plain Eleventy run never closes the pool);
+      // unref'd after the listeners, which ref it again
+      w.unref();
       this.workers.push(w);
       this.idle.push(w);
     }
@@ -61,6 +64,7 @@ class Pool {
       const w = this.idle.pop() as Worker;
       const { model, prefix, job } = this.queue.shift() as (typeof this.queue)[number];
       this.running.set(w, job);
+      w.ref();
       w.postMessage({ model, prefix });
     }
   }

@@ -2,7 +2,7 @@
 import { join } from 'node:path';
 import Eleventy from '@11ty/eleventy';
 import type { Catalog } from '../pipeline/catalog.js';
-import { handOverCatalog, PACKAGE_ROOT, PAGES_DIR } from './plugin.js';
+import { PACKAGE_ROOT, PAGES_DIR, scatterbookSite } from './plugin.js';
 
 /**
  * Parts per Eleventy run: Eleventy keeps every page it renders until its run
@@ -23,8 +23,14 @@ export async function writeSite(content: string, catalog: Catalog, outDir: strin
 }
 
 async function writeRun(content: string, catalog: Catalog, outDir: string): Promise<void> {
-  handOverCatalog(content, catalog);
-  const elev = new Eleventy(PAGES_DIR, outDir, { quietMode: true, loader: 'esm', configPath: join(PACKAGE_ROOT, '.eleventy.js') });
+  // the catalog goes to this run's plugin directly (no state shared between runs); the configuration file of
+  // our own, which sets only the folders, keeps Eleventy from reading one in the user's working folder
+  const elev = new Eleventy(PAGES_DIR, outDir, {
+    quietMode: true,
+    loader: 'esm',
+    configPath: join(PACKAGE_ROOT, 'dist/site/eleventy-config.js'),
+    config: (eleventyConfig) => scatterbookSite(eleventyConfig, { content, catalog }),
+  });
   // Eleventy prints a summary line even in quiet mode; scatterbook prints its own. Its errors still throw from write().
   const quiet = { log() {}, info() {}, warn() {}, error() {} };
   (elev as unknown as { logger: { overrideLogger(l: unknown): void } }).logger.overrideLogger(quiet);

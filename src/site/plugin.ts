@@ -39,18 +39,6 @@ export interface SitePluginOptions {
   readonly catalog: Catalog | (() => Promise<Catalog>);
 }
 
-let handed: { content: string; catalog: Catalog } | null = null;
-
-/** `scatterbook build` computes the catalog first and hands it over here, for the config to pick up. */
-export function handOverCatalog(content: string, catalog: Catalog): void {
-  handed = { content, catalog };
-}
-
-/** The catalog handed over by `scatterbook build`, if any (a plain Eleventy run has none). */
-export function handedCatalog(): { content: string; catalog: Catalog } | null {
-  return handed;
-}
-
 const UNIT_AFTER_NUMBER = /(\d) (?=(?:dBm|dBc|dB|GHz|MHz|kHz|Hz|ns|ps|µs|us|ms|°C|°|Ω|mW|W|mA|A|mV|V|mm|g)(?![A-Za-z]))/g;
 
 /** HTML with a no-break space between each number and the unit after it, in text only: never inside a tag (attributes keep their values) or a script. */

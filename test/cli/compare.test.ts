@@ -96,7 +96,7 @@ describe('scatterbook compare (quick form)', () => {
     expect(r.stderr).toBe('error: --limit "insertion-los S21 max 1 dB": unknown figure "insertion-los"; did you mean "insertion-loss"?\n');
     expect(run(['compare', 'ours.s2p', '--band', '2.40..2.48GHz', '--limit', 'insertion-loss S21 max 1 dB']).status).toBe(1);
     expect(run(['compare', 'ours.s2p']).status).toBe(2);
-    expect(run(['compare', 'nope.s2p', ...LIMITS]).stderr).toContain('nope.s2p: cannot read the file');
+    expect(run(['compare', 'nope.s2p', ...LIMITS]).stderr).toContain('nope.s2p: error: cannot read the file');
   });
 });
 

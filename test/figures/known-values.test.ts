@@ -201,6 +201,15 @@ describe('stability (textbook worked examples, from memory: Gonzalez, Microwave 
 });
 
 describe('dividers, delay, flatness', () => {
+  it('one measured point has no group delay, and the error says why (a derivative needs two frequencies); a band no file covers is said once for two limits', () => {
+    const single = networkOf([2.4e9], 50, () => [[cx(0.1), polar(0.9, -30)], [polar(0.9, -30), cx(0.1)]]);
+    const r = evaluateYaml(partYaml({ units: ['U1'], bands: '  b: {from: 2.4 GHz, to: 2.4 GHz}', limits: '  - {figure: group-delay, on: S21, band: b, max: 20 ns}' }), { U1: single });
+    expect(r.errors[0].message).toBe('group-delay on S21 in unit U1 (U1.s4p): group delay is the derivative of the phase over frequency, and a file of 1 measured point has none; it needs at least two frequencies');
+    const wide = evaluateYaml(partYaml({ units: ['U1'], bands: '  b: {from: 2.3 GHz, to: 2.5 GHz}', limits: '  - {figure: group-delay, on: S21, band: b, max: 20 ns}\n  - {figure: insertion-loss, on: S21, band: b, max: 2 dB}' }), { U1: single });
+    expect(wide.errors).toHaveLength(1);
+    expect(wide.errors[0].code).toBe('band-outside-data');
+  });
+
   it('4-way divider at 6.5 dB: excess loss 6.5 − 10·log10 4 = 0.479 dB (the definition of excess loss, common practice; computed by hand)', () => {
     const t = Math.pow(10, -6.5 / 20);
     const z = cx(0), s = cx(t);

@@ -113,7 +113,8 @@ describe('errors name the line and what was expected', () => {
   });
 
   it('an empty file, and a file with only an option line', () => {
-    expect(bad('')).toMatchObject({ code: 'missing-option-line', line: 0 });
+    expect(bad('')).toMatchObject({ code: 'no-data', line: 0, message: 'the file is empty (0 bytes); expected a Touchstone file ("# GHz S MA R 50" followed by the data)' });
+    expect(bad('! nothing here\n')).toMatchObject({ code: 'missing-option-line', line: 0 });
     expect(bad('! nothing here\n# GHz S RI\n')).toMatchObject({ code: 'no-data', line: 0 });
   });
 
