@@ -3,7 +3,7 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { FIGURES } from '../src/figures/registry.js';
-import { PART_SCHEMA } from '../src/spec/part-schema.js';
+import { PART_SCHEMA } from '../src/part-file/part-schema.js';
 
 const readme = readFileSync(join(import.meta.dirname, '../README.md'), 'utf8');
 

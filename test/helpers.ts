@@ -53,8 +53,8 @@ export function maxAbsDiff(a: ArrayLike<number>, b: ArrayLike<number>): number {
 
 import { evaluatePart, type PartResult } from '../src/evaluate/evaluate.js';
 import { makeCompiler } from '../src/figures/expression.js';
-import { loadPartText } from '../src/spec/load.js';
-import type { SpecError } from '../src/spec/diagnostics.js';
+import { loadPartText } from '../src/part-file/load.js';
+import type { SpecError } from '../src/part-file/diagnostics.js';
 import { create, all } from 'mathjs';
 import type { NoiseParameters } from '../src/touchstone/normalize.js';
 

@@ -16,7 +16,7 @@
 import { median } from '../evaluate/stats.js';
 import { makeNetwork, type Network } from '../network/network.js';
 import { writeTouchstone } from '../touchstone/write.js';
-import { medianText } from '../pipeline/spill.js';
+import { medianText } from '../io/spilled.js';
 
 export const CSV_COLUMNS = [
   'part', 'revision', 'figure', 'on', 'band', 'from_hz', 'to_hz', 'unit',

@@ -7,7 +7,7 @@
 import { createHash } from 'node:crypto';
 import { readdirSync, readFileSync, lstatSync } from 'node:fs';
 import { join } from 'node:path';
-import type { Catalog, Inputs } from '../pipeline/catalog.js';
+import type { Catalog, Inputs } from '../model/catalog.js';
 
 export const MANIFEST = 'manifest.json';
 export const MANIFEST_VERSION = 1;

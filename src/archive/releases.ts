@@ -6,19 +6,9 @@
  */
 import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
-import type { SpecError } from '../spec/diagnostics.js';
+import type { SpecError } from '../part-file/diagnostics.js';
 import { changedSince, figureChanges, parseRecord, recordName, releasedFolder, type RecordedFigure, type RecordedFile, type ReleaseRecord } from './release.js';
-
-export interface HistoryRow {
-  readonly revision: string;
-  readonly date: string;
-  /** The release's date (YYYY-MM-DD), or '' for the current revision when it is not released. */
-  readonly released: string;
-  readonly current: boolean;
-  /** Its figures against the revision before it, in words. */
-  readonly changes: readonly string[];
-  readonly documents: ReadonlyArray<{ readonly name: string; readonly url: string }>;
-}
+import type { HistoryRow } from '../model/catalog.js';
 
 /** Every release record of a part folder, oldest release first. */
 export function readReleases(partDir: string, display: (file: string) => string): { records: ReleaseRecord[]; errors: SpecError[] } {

@@ -6,9 +6,9 @@
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { SITE_MARKER, SITE_MARKER_TEXT } from '../io/output-folder.js';
-import type { Catalog } from '../pipeline/catalog.js';
 import { writeExports } from './exports.js';
 import { buildManifest, MANIFEST, manifestText } from './manifest.js';
+import type { Catalog } from '../model/catalog.js';
 
 export function sealSite(catalog: Catalog, dir: string, version: string, options: { readonly medians?: boolean } = {}): void {
   writeFileSync(join(dir, SITE_MARKER), SITE_MARKER_TEXT);

@@ -12,7 +12,6 @@ import { describeFault } from '../io/fault.js';
 import { outputRefusal } from '../io/output-folder.js';
 import { discard, pagesFolder, removeDeadBuilds, stagingFolder, swapInto } from '../io/swap.js';
 import { buildCatalog } from '../pipeline/build-catalog.js';
-import type { Catalog } from '../pipeline/catalog.js';
 import { partFolders } from '../pipeline/catalog.js';
 import { toolBuildId } from '../pipeline/cache.js';
 import { sealSite } from '../archive/seal.js';
@@ -26,6 +25,7 @@ import { parseArgs, UsageError, type FlagSpec, type ParsedArgs } from './args.js
 import { EXIT, type Command } from './command.js';
 import { progress } from './progress.js';
 import { painter, type Terminal } from './terminal.js';
+import type { Catalog } from '../model/catalog.js';
 
 export const BUILD_FLAGS: FlagSpec[] = [
   { name: 'out', value: true, help: 'the output folder (default _site)' },

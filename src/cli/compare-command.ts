@@ -15,11 +15,11 @@ import { bandRange, coarsestResolutionHz, trimNumber } from '../format/units.js'
 import { formatLimit, formatValue } from '../format/values.js';
 import { bandGaps, bestMargin, gapText, rankReasons } from '../compare/explain.js';
 import { contentRootOf, evaluateComparisonFile } from '../pipeline/comparison.js';
-import { formatSpecError } from '../spec/diagnostics.js';
-import type { NormalizedPart } from '../spec/normalize.js';
+import { formatSpecError } from '../part-file/diagnostics.js';
+import type { NormalizedPart } from '../part-file/normalize.js';
 import { readTouchstoneFile } from '../io/touchstone-file.js';
-import { loadPartText } from '../spec/load.js';
-import { parseQuantity } from '../spec/quantity.js';
+import { loadPartText } from '../part-file/load.js';
+import { parseQuantity } from '../part-file/quantity.js';
 import { formatDiagnostic } from '../touchstone/diagnostics.js';
 import { parseArgs, UsageError, type FlagSpec } from './args.js';
 import { EXIT, type Command, type ExitCode } from './command.js';

@@ -9,7 +9,7 @@ import { printable } from '../format/escape.js';
 import { coarsestResolutionHz, formatFrequency } from '../format/units.js';
 import { formatLimit, formatStages, formatValue } from '../format/values.js';
 import { evaluatePartFile } from '../pipeline/part.js';
-import { formatSpecError } from '../spec/diagnostics.js';
+import { formatSpecError } from '../part-file/diagnostics.js';
 import { parseArgs, UsageError, type FlagSpec } from './args.js';
 import { EXIT, type Command } from './command.js';
 import { painter, type Painter, type Terminal } from './terminal.js';

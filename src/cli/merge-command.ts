@@ -17,12 +17,13 @@ import { describeFault } from '../io/fault.js';
 import { outputRefusal, SITE_MARKER } from '../io/output-folder.js';
 import { discard, removeDeadBuilds, stagingFolder, swapInto } from '../io/swap.js';
 import { toolBuildId } from '../pipeline/cache.js';
-import { assembleCatalog, readSettings, type Catalog } from '../pipeline/catalog.js';
+import { assembleCatalog, readSettings } from '../pipeline/catalog.js';
 import { writeSite } from '../site/eleventy-run.js';
 import { parseArgs, UsageError, type FlagSpec } from './args.js';
 import { packageVersion, SHARD_RECORD } from './build-command.js';
 import { EXIT, type Command } from './command.js';
 import { painter, type Terminal } from './terminal.js';
+import type { Catalog } from '../model/catalog.js';
 
 const FLAGS: FlagSpec[] = [
   { name: 'out', value: true, help: 'the joined site (default _site)' },

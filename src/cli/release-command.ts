@@ -19,7 +19,7 @@ import { sha256File } from '../io/hash.js';
 import { evaluatePartFile } from '../pipeline/part.js';
 import { fingerprintOf } from '../pipeline/catalog.js';
 import { pdfFileName, reportPdfFileName } from '../pdf/jobs.js';
-import { formatSpecError } from '../spec/diagnostics.js';
+import { formatSpecError } from '../part-file/diagnostics.js';
 import { packageVersion, runBuild } from './build-command.js';
 import { parseArgs, UsageError, type FlagSpec } from './args.js';
 import { EXIT, type Command } from './command.js';

@@ -1,5 +1,5 @@
 /** `scatterbook schema [part|comparison]`: prints the JSON Schema of part files (the default) or comparison files, for editors to complete and check them. */
-import { comparisonJsonSchemaText, partJsonSchemaText } from '../spec/json-schema.js';
+import { comparisonJsonSchemaText, partJsonSchemaText } from '../part-file/json-schema.js';
 import { parseArgs, UsageError } from './args.js';
 import { EXIT, type Command } from './command.js';
 

@@ -15,8 +15,8 @@
 import { evaluatePart, gridOf, type CheckResult, type PartResult, type UnitData } from '../evaluate/evaluate.js';
 import { renormalize } from '../network/convert.js';
 import { selectPorts } from '../network/ports.js';
-import type { Position, SpecError, SpecWarning } from '../spec/diagnostics.js';
-import type { NormalizedCheck, NormalizedPart } from '../spec/normalize.js';
+import type { Position, SpecError, SpecWarning } from '../part-file/diagnostics.js';
+import type { NormalizedCheck, NormalizedPart } from '../part-file/normalize.js';
 
 export interface Candidate {
   readonly label: string;

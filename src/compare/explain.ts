@@ -8,7 +8,7 @@ import type { Trace } from '../evaluate/trace.js';
 import { figureTrace } from '../evaluate/trace.js';
 import { bandRange } from '../format/units.js';
 import { formatValue } from '../format/values.js';
-import type { NormalizedPart } from '../spec/normalize.js';
+import type { NormalizedPart } from '../part-file/normalize.js';
 import type { CandidateResult, MarginEntry } from './compare.js';
 import { differenceTrace, medianTrace } from '../evaluate/difference.js';
 

@@ -9,8 +9,8 @@
  * the result's worst, typical, margin and pass follow the rules of every
  * other limit (evaluate.ts).
  */
-import type { Position, SpecError } from '../spec/diagnostics.js';
-import type { Change, NormalizedCheck, NormalizedPart } from '../spec/normalize.js';
+import type { Position, SpecError } from '../part-file/diagnostics.js';
+import type { Change, NormalizedCheck, NormalizedPart } from '../part-file/normalize.js';
 import { formatFrequency } from '../format/units.js';
 import { differenceTrace } from './difference.js';
 import { marginOf, resultOf, type CheckResult, type UnitData, type UnitResult } from './evaluate.js';

@@ -18,11 +18,11 @@ import { FigureUndefined, type FigureContext, type Item } from '../figures/types
 import { formatFrequency } from '../format/units.js';
 import type { Network } from '../network/network.js';
 import type { NoiseParameters } from '../touchstone/normalize.js';
-import type { Position, SpecError, SpecWarning } from '../spec/diagnostics.js';
+import type { Position, SpecError, SpecWarning } from '../part-file/diagnostics.js';
 import { classOf } from '../classes/registry.js';
-import type { Change, Limit, NormalizedCheck, NormalizedPart } from '../spec/normalize.js';
+import type { Change, Limit, NormalizedCheck, NormalizedPart } from '../part-file/normalize.js';
 import { evaluateChange } from './change.js';
-import { parameterName } from '../spec/parameter.js';
+import { parameterName } from '../part-file/parameter.js';
 import { bandSet } from './band.js';
 import { itemOnNetwork, orderIndex, pairsOfOrder } from './mixed.js';
 

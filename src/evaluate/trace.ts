@@ -5,7 +5,7 @@
  * evaluate.ts over their bands.
  */
 import type { FigureContext, FigureDef, Item } from '../figures/types.js';
-import type { NormalizedPart } from '../spec/normalize.js';
+import type { NormalizedPart } from '../part-file/normalize.js';
 import type { UnitData } from './evaluate.js';
 import { itemOnNetwork } from './mixed.js';
 

@@ -13,7 +13,7 @@
 import type { MathJsInstance, MathNode } from 'mathjs';
 import { entry } from '../network/network.js';
 import { db, groupDelay, lossDb, magnitude, phaseDeg, phaseUnwrappedDeg, vswr } from '../network/traces.js';
-import type { SParameter } from '../spec/parameter.js';
+import type { SParameter } from '../part-file/parameter.js';
 import type { FigureContext } from './types.js';
 
 type TraceFn = (ctx: FigureContext, p: SParameter) => Float64Array;

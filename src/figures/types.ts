@@ -3,7 +3,7 @@
  * and how it is computed from one measured network.
  */
 import type { Network } from '../network/network.js';
-import type { SParameter } from '../spec/parameter.js';
+import type { SParameter } from '../part-file/parameter.js';
 import type { NoiseParameters } from '../touchstone/normalize.js';
 
 /** Units of figure values: dB, degrees, seconds, hertz, or none. */

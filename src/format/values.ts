@@ -1,6 +1,6 @@
 /** Figure values and limits as people read them in tables. */
 
-import type { Limit } from '../spec/normalize.js';
+import type { Limit } from '../part-file/normalize.js';
 import { fixed, formatFrequencyTo } from './units.js';
 
 /**

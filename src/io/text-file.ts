@@ -5,7 +5,7 @@
  * is refused unread.
  */
 import { closeSync, fstatSync, openSync, readSync, statSync, constants } from 'node:fs';
-import { decodeYamlSource, MAX_YAML_BYTES, tooLargeError, type SourceResult } from '../spec/source.js';
+import { decodeYamlSource, MAX_YAML_BYTES, tooLargeError, type SourceResult } from '../part-file/source.js';
 
 /** What a path that is not a regular file holds, in words, or null for a regular file. */
 export function notAFile(st: { isFile(): boolean; isDirectory(): boolean; isFIFO(): boolean; isSocket(): boolean; isCharacterDevice(): boolean; isBlockDevice(): boolean }): string | null {

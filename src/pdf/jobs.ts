@@ -1,7 +1,7 @@
 /** Which pages become which PDFs, and what each PDF says about itself. */
 import { join } from 'node:path';
-import type { Catalog } from '../pipeline/catalog.js';
 import type { PrintJob } from './print.js';
+import type { Catalog } from '../model/catalog.js';
 
 /** The part number kept to letters, digits, '.', '-' and '_' (no leading '.' or '_'), or the slug when nothing is left: how the part's files in the site are named. */
 export function partFileStem(part: string, slug: string): string {

@@ -4,14 +4,15 @@
  * callback.
  */
 import { openCache } from './cache.js';
-import { assembleCatalog, buildPartPage, partFolders, readSettings, type Catalog, type PartFailure, type PartPage } from './catalog.js';
+import { assembleCatalog, buildPartPage, partFolders, readSettings } from './catalog.js';
 import type { StageTimes } from './part.js';
 import { createHash } from 'node:crypto';
 import { relative } from 'node:path';
-import { formatSpecError } from '../spec/diagnostics.js';
+import { formatSpecError } from '../part-file/diagnostics.js';
 import { comparisonFiles, evaluateComparisonFile } from './comparison.js';
 import { spillPage } from './spill.js';
-import { buildComparisonPage, type ComparisonPage } from './comparison-page.js';
+import { buildComparisonPage } from './comparison-page.js';
+import type { Catalog, ComparisonPage, PartFailure, PartPage } from '../model/catalog.js';
 
 /**
  * buildPartPage, with a bug met on one part's way (an exception that is no fault of the machine, such as

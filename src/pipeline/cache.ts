@@ -17,8 +17,8 @@ import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { dirname, join, relative, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { writeFileAtomic } from '../io/atomic.js';
-import type { PartPage } from './catalog.js';
 import { spillPage } from './spill.js';
+import type { PartPage } from '../model/catalog.js';
 
 const sha256 = (data: string | Uint8Array) => createHash('sha256').update(data).digest('hex');
 

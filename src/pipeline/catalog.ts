@@ -11,18 +11,17 @@ import { figuresJson } from '../evaluate/json.js';
 import { largest, smallest } from '../evaluate/stats.js';
 import { bandRange, coarsestResolutionHz, formatFrequency, trimNumber } from '../format/units.js';
 import { formatLimit, formatStages, formatValue, type Cell } from '../format/values.js';
-import { composeDisclaimer, conditionText, specification, type SpecGroup } from './specification.js';
+import { composeDisclaimer, conditionText, specification } from './specification.js';
 import { ieee370Quality } from '../network/ieee370.js';
 import { passivity, reciprocity } from '../network/quality.js';
 import { CLASSES, classOf } from '../classes/registry.js';
 import { buildPlots } from '../plots/model.js';
-import { plotBlocks, type PlotBlock } from './plot-blocks.js';
-import type { ComparisonPage } from './comparison-page.js';
-import { formatSpecError, whereOf, type SpecError } from '../spec/diagnostics.js';
-import type { NormalizedPart } from '../spec/normalize.js';
-import { cautionsFor } from '../site/cautions.js';
-import { renderMarkdown } from '../site/markdown.js';
-import { assetPathProblem, loadSettings, type SiteSettings } from '../site/settings.js';
+import { plotBlocks } from './plot-blocks.js';
+import { formatSpecError, whereOf, type SpecError } from '../part-file/diagnostics.js';
+import type { NormalizedPart } from '../part-file/normalize.js';
+import { cautionsFor } from '../classes/cautions.js';
+import { renderMarkdown } from '../format/markdown.js';
+import { assetPathProblem, loadSettings, type SiteSettings } from '../site-file/settings.js';
 import { realPath, within } from '../io/output-folder.js';
 import { readYamlFile } from '../io/text-file.js';
 import { evaluatePartFile, type LoadedUnit, type StageTimes } from './part.js';
@@ -31,137 +30,9 @@ import { medianNetwork, medianTouchstone } from '../archive/exports.js';
 import { sha256File } from '../io/hash.js';
 import { partFileStem } from '../pdf/jobs.js';
 import { recordedFigures } from '../archive/release.js';
-import { history, readReleases, releaseProblem, type HistoryRow } from '../archive/releases.js';
+import { history, readReleases, releaseProblem } from '../archive/releases.js';
+import type { Catalog, ComparisonPage, ComplianceRow, HistoryRow, Inputs, LotRow, MeasurementRow, PartFailure, PartPage, PlotBlock, QualityRow, SpecGroup } from '../model/catalog.js';
 
-export type { PlotBlock } from './plot-blocks.js';
-
-export interface ComplianceRow {
-  readonly label: string;
-  readonly figure: string;
-  readonly on: string;
-  readonly band: string;
-  readonly bandRange: string;
-  readonly limit: string;
-  readonly typical: Cell;
-  readonly worst: Cell;
-  readonly worstUnit: string;
-  readonly at: Cell;
-  readonly margin: Cell;
-  readonly verdict: 'PASS' | 'FAIL' | 'REPORT';
-  /** A change limit's two stages, "stage: initial → stage: after shock"; '' for every other row. */
-  readonly stages: string;
-  readonly units: ReadonlyArray<{ readonly unit: string; readonly worst: Cell; readonly at: Cell; readonly margin: Cell; readonly verdict: 'PASS' | 'FAIL' | 'REPORT' }>;
-}
-
-export interface MeasurementRow {
-  readonly unit: string;
-  readonly conditions: string;
-  readonly file: string;
-  readonly sha256: string;
-  readonly points: number;
-  readonly range: string;
-  readonly reference: string;
-  readonly touchstone: string;
-  readonly notes: string;
-  /** Measurement metadata from the part file ('' where not given). */
-  readonly instrument: string;
-  readonly calibration: string;
-  readonly measuredOn: string;
-  readonly operator: string;
-  /** The file's own comment and [Begin Information] lines (the first 12). */
-  readonly fileLines: readonly string[];
-}
-
-export interface LotRow {
-  readonly label: string;
-  readonly on: string;
-  readonly band: string;
-  readonly stages: string;
-  /** Distinct units. */
-  readonly units: number;
-  readonly groups: ReadonlyArray<{ readonly label: string; readonly count: number; readonly mean: string; readonly std: string; readonly min: string; readonly max: string; readonly cpk: string; readonly worst: string }>;
-  /** Per condition: the largest minus the smallest of the conditions' worsts, or ''. */
-  readonly conditionSpread: string;
-  readonly strip: string;
-}
-
-export interface QualityRow {
-  readonly unit: string;
-  readonly passivity: string;
-  readonly reciprocity: string;
-  readonly ieee370: string;
-  /** A warning for the reader, or null when the data look as the class expects. */
-  readonly flag: string | null;
-}
-
-export interface PartPage {
-  readonly slug: string;
-  readonly url: string;
-  readonly pdfUrl: string | null;
-  /** The test report page (QA-facing), its PDF; null when site.yaml keeps reports out. */
-  readonly reportUrl: string | null;
-  readonly reportPdfUrl: string | null;
-  readonly part: string;
-  readonly title: string;
-  readonly partClass: string;
-  readonly revision: string;
-  readonly date: string;
-  readonly vendor: string;
-  readonly description: string;
-  readonly notesHtml: string;
-  readonly packageText: string;
-  readonly connector: string;
-  readonly operatingTemperature: string;
-  readonly ports: ReadonlyArray<{ readonly number: number; readonly name: string }>;
-  readonly pass: boolean;
-  readonly frequencyRange: string;
-  /** The band the part is specified for (operating-band, or the band of the class's main transmission limit), as text; '' when it has no limits. */
-  readonly operatingBand: string;
-  readonly features: readonly string[];
-  readonly weight: string;
-  /** The outline drawing's path in the site (under assets/), or ''. */
-  readonly outline: string;
-  readonly ordering: ReadonlyArray<{ readonly code: string; readonly description: string }>;
-  /** The published measurement files: where they come from (relative to the content folder) and their path in the site. */
-  readonly dataFiles: ReadonlyArray<{ readonly unit: string; readonly from: string; readonly url: string; readonly name: string }>;
-  /** Distinct units measured (a unit at three temperatures counts once). */
-  readonly unitCount: number;
-  readonly specification: readonly SpecGroup[];
-  /** The conditions typical values are quoted at (typical-at), as text, or ''. */
-  readonly typicalConditions: string;
-  /** The closing disclaimer: the vendor's, or one composed from how the limits are assured. */
-  readonly disclaimer: string;
-  readonly compliance: readonly ComplianceRow[];
-  readonly plots: readonly PlotBlock[];
-  readonly measurements: readonly MeasurementRow[];
-  readonly quality: readonly QualityRow[];
-  /** Lot statistics per limit (the test report). */
-  readonly lots: readonly LotRow[];
-  readonly ratings: ReadonlyArray<{ readonly parameter: string; readonly value: string; readonly notes: string }>;
-  readonly cautions: readonly string[];
-  /**
-   * Warnings, the measurement files' reader warnings first: where (FILE:LINE:COL, for the report and
-   * the terminal), what, and whether a data file's reader gave it (the datasheet shows the others only).
-   */
-  readonly warnings: ReadonlyArray<{ readonly where: string; readonly message: string; readonly fromFile: boolean }>;
-  /** The JSON of `scatterbook figures --json`, for machine readers and tests. */
-  readonly figuresJson: string;
-  /** Exports: the site paths of the part's figures as JSON and CSV and of the median Touchstone file (null: why there is none). */
-  readonly exports: { readonly json: string; readonly csv: string; readonly median: { readonly url: string; readonly text: string; readonly file?: string } | null; readonly noMedian: string };
-  /** Releases and the current revision, oldest first (archive/releases.ts). */
-  readonly history: readonly HistoryRow[];
-  /** The released documents the site carries unchanged: where they are in the content folder, and their site path. */
-  readonly releasedFiles: ReadonlyArray<{ readonly from: string; readonly url: string }>;
-  /** What the page rests on, for the manifest: the part file and every measurement file, relative to the content folder, with their SHA-256. */
-  readonly inputs: Inputs;
-}
-
-export interface Inputs {
-  readonly spec: { readonly path: string; readonly sha256: string };
-  readonly data: ReadonlyArray<{ readonly unit: string; readonly path: string; readonly sha256: string }>;
-  /** The first 12 hex digits of the SHA-256 of the inputs (fingerprintOf): shown on the documents, it leads to their manifest entry. */
-  readonly fingerprint: string;
-}
 
 /** The SHA-256 of "spec path, sha256" then "data path, sha256" per file, one per line, as 12 hex digits. */
 export function fingerprintOf(spec: Inputs['spec'], data: Inputs['data']): string {
@@ -172,37 +43,9 @@ export function fingerprintOf(spec: Inputs['spec'], data: Inputs['data']): strin
 /** A file's place in the content folder, with / between folders. */
 export const contentPath = (contentRoot: string, path: string) => relative(contentRoot, path).split(sep).join('/');
 
-export interface PartFailure {
-  readonly slug: string;
-  readonly file: string;
-  readonly messages: readonly string[];
-  /** A bug of scatterbook met while building the part, not a fault of its files (the build exits 4). */
-  readonly internal?: boolean;
-}
-
-export interface Catalog {
-  readonly site: SiteSettings;
-  /** The scatterbook version that built it. */
-  readonly version: string;
-  readonly parts: readonly PartPage[];
-  /** The parts whose test report is built (all, or none when site.yaml sets reports: false). */
-  readonly reportParts: readonly PartPage[];
-  readonly byClass: ReadonlyArray<{ readonly partClass: string; readonly title: string; readonly parts: readonly PartPage[] }>;
-  readonly failures: readonly PartFailure[];
-  /** The comparisons of candidate parts (content/comparisons/<slug>.yaml). */
-  readonly comparisons: readonly ComparisonPage[];
-  readonly generator: string;
-  /** Cpk is shown from this many units up (archive/lot.ts). */
-  readonly cpkMinUnits: number;
-  /** The pages this run renders (all, in a build; none but the index when `merge` joins shards that rendered them). */
-  readonly pages: { readonly parts: readonly PartPage[]; readonly reports: readonly PartPage[]; readonly comparisons: readonly ComparisonPage[] };
-}
-
-
 const cell = (v: number | null, unit: string, resolutionHz: number | null = null): Cell => ({ text: formatValue(v, unit, resolutionHz), value: v !== null && Number.isFinite(v) ? v : null });
 const atCell = (hz: number | null): Cell => ({ text: hz === null ? '—' : formatFrequency(hz), value: hz });
 const verdictOf = (pass: boolean | null): 'PASS' | 'FAIL' | 'REPORT' => (pass === null ? 'REPORT' : pass ? 'PASS' : 'FAIL');
-
 
 function complianceRow(r: CheckResult, res: number | null): ComplianceRow {
   return {

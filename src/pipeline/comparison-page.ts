@@ -14,66 +14,9 @@ import { formatLimit, formatValue } from '../format/values.js';
 import { comparisonPlots, differencePlots } from '../plots/comparison.js';
 import { groupStyle } from '../plots/model.js';
 import type { ComparisonOutcome } from './comparison.js';
-import { plotBlocks, type PlotBlock } from './plot-blocks.js';
-import { inputsOf, type Inputs } from './catalog.js';
-
-export interface ComparisonCell {
-  readonly text: string;
-  /** The worst value (null without a result), for machine readers and tests. */
-  readonly value: number | null;
-  readonly margin: string;
-  readonly verdict: 'PASS' | 'FAIL' | 'NO DATA';
-  readonly best: boolean;
-}
-
-export interface ComparisonCandidate {
-  readonly label: string;
-  readonly vendor: string;
-  readonly notes: string;
-  readonly color: string;
-  readonly dash: string;
-  readonly rank: number | null;
-  readonly pass: boolean;
-  readonly coverage: 'full' | 'partial';
-  /** "PASS", "FAIL", or "NOT RANKED: partial data". */
-  readonly verdict: string;
-  readonly reason: string;
-  /** Where its data leave a band uncovered, in words. */
-  readonly gaps: readonly string[];
-  /** "catalog part VT-BPF-2450, revision B (content/parts/vt-bpf-2450/part.yaml)" or "Touchstone files". */
-  readonly source: string;
-  readonly portMap: string;
-  /** "renormalized from 75 Ω to 50 Ω", or ''. */
-  readonly renormalized: string;
-  readonly units: ReadonlyArray<{ readonly unit: string; readonly file: string; readonly sha256: string; readonly points: number; readonly range: string; readonly reference: string; readonly touchstone: string }>;
-}
-
-export interface ComparisonPage {
-  readonly slug: string;
-  readonly url: string;
-  readonly pdfUrl: string | null;
-  readonly title: string;
-  readonly description: string;
-  readonly date: string;
-  readonly classTitle: string;
-  readonly reference: string;
-  readonly bands: ReadonlyArray<{ readonly name: string; readonly range: string }>;
-  readonly requirement: ReadonlyArray<{ readonly label: string; readonly on: string; readonly band: string; readonly bandRange: string; readonly limit: string }>;
-  readonly candidates: readonly ComparisonCandidate[];
-  readonly rows: ReadonlyArray<{ readonly label: string; readonly on: string; readonly band: string; readonly limit: string; readonly cells: readonly ComparisonCell[] }>;
-  /** Ranked candidates best first, then the unranked, each with its reason. */
-  readonly ranking: ReadonlyArray<{ readonly rank: string; readonly label: string; readonly reason: string }>;
-  readonly baseline: string;
-  /** Per limit: each other candidate's worst minus the baseline's. */
-  readonly differences: ReadonlyArray<{ readonly label: string; readonly on: string; readonly band: string; readonly cells: ReadonlyArray<{ readonly label: string; readonly text: string; readonly value: number | null }> }>;
-  readonly plots: readonly PlotBlock[];
-  readonly differencePlots: readonly PlotBlock[];
-  readonly warnings: ReadonlyArray<{ readonly where: string; readonly message: string }>;
-  /** The JSON of `scatterbook compare --json`, for machine readers and tests. */
-  readonly comparisonJson: string;
-  /** The comparison file and every candidate's files, for the manifest. */
-  readonly inputs: Inputs;
-}
+import { plotBlocks } from './plot-blocks.js';
+import { inputsOf } from './catalog.js';
+import type { ComparisonCandidate, ComparisonCell, ComparisonPage, Inputs, PlotBlock } from '../model/catalog.js';
 
 const ohms = (v: number) => `${trimNumber(v)} Ω`;
 

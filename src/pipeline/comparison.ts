@@ -9,9 +9,9 @@ import { basename, dirname, join, resolve } from 'node:path';
 import { bandsNoneCover, candidateErrors, compareCandidates, type CandidateResult } from '../compare/compare.js';
 import { baselineDifferences, rankReasons, type CandidateDifference } from '../compare/explain.js';
 import { readYamlFile } from '../io/text-file.js';
-import { loadComparisonText, type CandidateSpec, type NormalizedComparison } from '../spec/comparison.js';
-import type { SpecError, SpecWarning } from '../spec/diagnostics.js';
-import type { NormalizedPart } from '../spec/normalize.js';
+import { loadComparisonText, type CandidateSpec, type NormalizedComparison } from '../part-file/comparison.js';
+import type { SpecError, SpecWarning } from '../part-file/diagnostics.js';
+import type { NormalizedPart } from '../part-file/normalize.js';
 import { contentFile, loadPartFile, readMeasurementFile, type LoadedUnit } from './part.js';
 
 export interface LoadedCandidate {

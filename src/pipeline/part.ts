@@ -9,9 +9,9 @@ import { dirname, isAbsolute, relative, resolve } from 'node:path';
 import { evaluatePart, type PartResult, type UnitData } from '../evaluate/evaluate.js';
 import { loadExpressionCompiler, type ExpressionCompiler } from '../figures/expression.js';
 import { readTouchstoneFile } from '../io/touchstone-file.js';
-import type { SpecError, SpecWarning } from '../spec/diagnostics.js';
-import { loadPartText } from '../spec/load.js';
-import type { NormalizedPart } from '../spec/normalize.js';
+import type { SpecError, SpecWarning } from '../part-file/diagnostics.js';
+import { loadPartText } from '../part-file/load.js';
+import type { NormalizedPart } from '../part-file/normalize.js';
 import type { TouchstoneData } from '../touchstone/normalize.js';
 
 export interface LoadedUnit extends UnitData {

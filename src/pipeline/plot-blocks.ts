@@ -1,23 +1,7 @@
 /** Plot models → the SVG blocks pages place (drawn in the worker pool), with their legends. */
 import type { PlotModel } from '../plots/model.js';
 import { renderPlotAnywhere } from '../plots/pool.js';
-
-export interface PlotBlock {
-  readonly id: string;
-  /** 'smith' for a Smith chart, else a figure over frequency. */
-  readonly kind: 'figure' | 'smith';
-  readonly title: string;
-  /** The SVG ('' when it waits in svgFile: pipeline/spill.ts). */
-  readonly svg: string;
-  readonly svgFile?: string;
-  readonly legend: ReadonlyArray<{ readonly label: string; readonly color: string; readonly dash: string }>;
-  /** Limits of one series, drawn as a thick line in its style. */
-  readonly limitLegend: ReadonlyArray<{ readonly label: string; readonly color: string; readonly dash: string }>;
-  /** Distinct units, and measurements (a unit at three temperatures counts three times). */
-  readonly unitCount: number;
-  readonly measurementCount: number;
-  readonly hasLimits: boolean;
-}
+import type { PlotBlock } from '../model/catalog.js';
 
 /** Every model drawn, in order; `prefix` keeps the SVGs' element ids apart on one page. */
 export async function plotBlocks(models: readonly PlotModel[], prefix: string): Promise<PlotBlock[]> {

@@ -8,36 +8,9 @@ import type { CheckResult } from '../evaluate/evaluate.js';
 import { classOf } from '../classes/registry.js';
 import { bandRange } from '../format/units.js';
 import { displayUnit, formatLimit, formatNumber, formatValue, type Cell } from '../format/values.js';
-import type { NormalizedPart } from '../spec/normalize.js';
-import type { Assurance } from '../spec/part-schema.js';
-
-/** A row of the specification table: a figure over a band, with its limits and its typical value. */
-export interface SpecRow {
-  readonly label: string;
-  readonly on: string;
-  /** Band and conditions, e.g. "2.40 GHz to 2.50 GHz" or "10 MHz to 6 GHz, temperature 85 °C". */
-  readonly conditions: string;
-  /** Declared by the vendor, not computed from the measured files. */
-  readonly declared: boolean;
-  /** The index of the result the row shows, in figures --json's results (null for a declared row). */
-  readonly result: number | null;
-  readonly min: Cell;
-  readonly typ: Cell;
-  readonly max: Cell;
-  readonly unit: string;
-  /** The footnote mark of how the limit is assured ('' when it is checked on the listed units only). */
-  readonly mark: string;
-  /** Where typical comes from when that needs saying: "at temperature 25 °C", "over mixed conditions". */
-  readonly typicalNote: string;
-  /** One line for the catalog index: "Insertion loss 0.92 dB typ, ≤ 1.20 dB max". */
-  readonly summary: string;
-}
-
-/** Rows of one band (or the vendor's declared specifications), under a heading. */
-export interface SpecGroup {
-  readonly title: string;
-  readonly rows: readonly SpecRow[];
-}
+import type { NormalizedPart } from '../part-file/normalize.js';
+import type { Assurance } from '../part-file/part-schema.js';
+import type { SpecGroup, SpecRow } from '../model/catalog.js';
 
 /** Footnote marks of how a limit is assured. */
 export const ASSURANCE_MARKS: Readonly<Record<Assurance, string>> = { 'every-unit': '†', sample: '‡', design: '§' };

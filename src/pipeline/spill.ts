@@ -6,9 +6,9 @@
  * models in memory hold the files' paths. The cache keeps its entries' texts
  * the same way, in files beside them.
  */
-import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import type { PartPage } from './catalog.js';
+import type { PartPage } from '../model/catalog.js';
 
 /**
  * The page with its SVGs and median text moved into files under dir, named
@@ -31,9 +31,3 @@ export function spillPage(page: PartPage, dir: string, stem: string = page.slug,
   }
   return { ...page, plots, exports: { ...page.exports, median } };
 }
-
-/** A plot's SVG, from the page or from its file. */
-export const svgOf = (p: { svg: string; svgFile?: string }) => p.svg || (p.svgFile ? readFileSync(p.svgFile, 'utf8') : '');
-
-/** A median file's text, from the page or from its file. */
-export const medianText = (m: { text: string; file?: string }) => m.text || (m.file ? readFileSync(m.file, 'utf8') : '');

@@ -10,7 +10,7 @@ import type { CandidateResult } from '../compare/compare.js';
 import type { CandidateDifference } from '../compare/explain.js';
 import { largest, smallest } from '../evaluate/stats.js';
 import { frequencyUnitFor } from '../format/units.js';
-import type { NormalizedPart } from '../spec/normalize.js';
+import type { NormalizedPart } from '../part-file/normalize.js';
 import { buildOne, figureFor, groupStyle, itemsFor, plotDefs, rangeFor, SMITH, thin, valueDisplay, type PlotModel, type TracePoint } from './model.js';
 
 export function comparisonPlots(requirement: NormalizedPart, results: readonly CandidateResult[]): PlotModel[] {

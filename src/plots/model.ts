@@ -16,8 +16,8 @@ import { frequencyUnitFor } from '../format/units.js';
 import { interpolateAt as valueAt } from '../network/interpolate.js';
 import { largest, median as medianOf, smallest } from '../evaluate/stats.js';
 import { figureTrace } from '../evaluate/trace.js';
-import type { NormalizedCheck, NormalizedPart } from '../spec/normalize.js';
-import { parameterName, parseParameter, type SParameter } from '../spec/parameter.js';
+import type { NormalizedCheck, NormalizedPart } from '../part-file/normalize.js';
+import { parameterName, parseParameter, type SParameter } from '../part-file/parameter.js';
 import { classOf, DOWNWARD, type PlotDef } from '../classes/registry.js';
 
 export interface Region {

@@ -15,8 +15,8 @@
 import type { UnitData } from '../evaluate/evaluate.js';
 import { itemOnNetwork } from '../evaluate/mixed.js';
 import { entry } from '../network/network.js';
-import type { NormalizedPart } from '../spec/normalize.js';
-import { parameterName, parseParameter } from '../spec/parameter.js';
+import type { NormalizedPart } from '../part-file/normalize.js';
+import { parameterName, parseParameter } from '../part-file/parameter.js';
 import type { PlotDef } from '../classes/registry.js';
 import { DASHES, PALETTE } from './spec.js';
 import type { PlotModel, TracePoint } from './model.js';

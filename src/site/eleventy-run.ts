@@ -1,8 +1,8 @@
 /** Runs Eleventy on our pages with our configuration file, into a given folder. */
 import { join } from 'node:path';
 import Eleventy from '@11ty/eleventy';
-import type { Catalog } from '../pipeline/catalog.js';
 import { PACKAGE_ROOT, PAGES_DIR, scatterbookSite } from './plugin.js';
+import type { Catalog } from '../model/catalog.js';
 
 /**
  * Parts per Eleventy run: Eleventy keeps every page it renders until its run

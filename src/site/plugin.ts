@@ -11,9 +11,9 @@ import { dirname, join, relative, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { UserConfig } from '@11ty/eleventy';
 import nunjucks from 'nunjucks';
-import { svgOf } from '../pipeline/spill.js';
-import type { Catalog } from '../pipeline/catalog.js';
+import { svgOf } from '../io/spilled.js';
 import { copyAssets, planAssets } from '../io/assets.js';
+import type { Catalog } from '../model/catalog.js';
 
 /** The package root (this file is src/site/plugin.ts, or dist/site/plugin.js once compiled). */
 export const PACKAGE_ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '../..');

@@ -1,5 +1,5 @@
 /**
- * A longer fuzz run of part files than CI's fixed-seed test (test/spec/fuzz.test.ts):
+ * A longer fuzz run of part files than CI's fixed-seed test (test/part-file/fuzz.test.ts):
  * FUZZ_RUNS runs (default 20,000) from FUZZ_SEED (default: the clock, printed, so
  * a failure can be repeated). Prints how many mutated files loaded, how many were
  * refused with errors, and the runs per second. `npm run bench:fuzz`. Not a test.

@@ -10,8 +10,8 @@
 import { describe, expect, it } from 'vitest';
 import { CLASSES, classOf } from '../../src/classes/registry.js';
 import { FIGURES } from '../../src/figures/registry.js';
-import { PART_SCHEMA } from '../../src/spec/part-schema.js';
-import { cautionsFor } from '../../src/site/cautions.js';
+import { PART_SCHEMA } from '../../src/part-file/part-schema.js';
+import { cautionsFor } from '../../src/classes/cautions.js';
 
 describe('the class registry', () => {
   it('is the part file\'s list of classes', () => {

@@ -8,7 +8,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { evaluatePart, type UnitData } from '../../src/evaluate/evaluate.js';
-import { loadPartText } from '../../src/spec/load.js';
+import { loadPartText } from '../../src/part-file/load.js';
 import { readTouchstone } from '../../src/touchstone/read.js';
 import { cx, networkOf } from '../helpers.js';
 

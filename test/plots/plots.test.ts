@@ -8,7 +8,7 @@
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { loadPartText } from '../../src/spec/load.js';
+import { loadPartText } from '../../src/part-file/load.js';
 import { buildPlots, thin } from '../../src/plots/model.js';
 import { plotSpec } from '../../src/plots/spec.js';
 import { renderPlot } from '../../src/plots/render.js';

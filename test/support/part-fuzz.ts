@@ -6,7 +6,7 @@
  * networks, and their plots' models are built. The property: whatever comes
  * in, the result is a value or a list of errors, each with a file, a line and
  * a message — never an exception, never a hang. Shared by the fixed-seed test
- * (test/spec/fuzz.test.ts) and the longer bench run (npm run bench:fuzz).
+ * (test/part-file/fuzz.test.ts) and the longer bench run (npm run bench:fuzz).
  */
 import { readFileSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
@@ -15,7 +15,7 @@ import { evaluatePart, type UnitData } from '../../src/evaluate/evaluate.js';
 import { loadExpressionCompiler, type ExpressionCompiler } from '../../src/figures/expression.js';
 import { loadPartFile } from '../../src/pipeline/part.js';
 import { buildPlots } from '../../src/plots/model.js';
-import { loadPartText } from '../../src/spec/load.js';
+import { loadPartText } from '../../src/part-file/load.js';
 
 const CONTENT = join(import.meta.dirname, '../../content');
 

@@ -9,9 +9,9 @@ import { join } from 'node:path';
 import { Ajv2020 } from 'ajv/dist/2020.js';
 import { parse } from 'yaml';
 import { describe, expect, it } from 'vitest';
-import { comparisonJsonSchema, comparisonJsonSchemaText, partJsonSchema, partJsonSchemaText } from '../../src/spec/json-schema.js';
-import { loadComparisonText } from '../../src/spec/comparison.js';
-import { loadPartText } from '../../src/spec/load.js';
+import { comparisonJsonSchema, comparisonJsonSchemaText, partJsonSchema, partJsonSchemaText } from '../../src/part-file/json-schema.js';
+import { loadComparisonText } from '../../src/part-file/comparison.js';
+import { loadPartText } from '../../src/part-file/load.js';
 
 const CONTENT = join(import.meta.dirname, '../../content');
 const parts = readdirSync(join(CONTENT, 'parts')).map((d) => join(CONTENT, 'parts', d, 'part.yaml')).filter(existsSync);

@@ -5,9 +5,9 @@
  */
 import { LineCounter, parseDocument } from 'yaml';
 import { CLASSES } from '../classes/registry.js';
-import type { Position, SpecError } from '../spec/diagnostics.js';
-import type { Schema } from '../spec/schema-dsl.js';
-import { validate, type Plain } from '../spec/validate.js';
+import type { Position, SpecError } from '../part-file/diagnostics.js';
+import type { Schema } from '../part-file/schema-dsl.js';
+import { validate, type Plain } from '../part-file/validate.js';
 
 export interface SiteSettings {
   readonly vendor: string;

@@ -4,7 +4,7 @@
  * the part file's own rules (the same figure names, units and messages).
  */
 import { describe, expect, it } from 'vitest';
-import { loadComparisonText, parseOhms } from '../../src/spec/comparison.js';
+import { loadComparisonText, parseOhms } from '../../src/part-file/comparison.js';
 
 const BASE = `title: Shortlist
 reference: 50 ohm

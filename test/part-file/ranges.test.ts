@@ -7,10 +7,10 @@
  * how far they expand.
  */
 import { describe, expect, it } from 'vitest';
-import { loadPartText } from '../../src/spec/load.js';
-import { parseQuantity } from '../../src/spec/quantity.js';
-import { decodeYamlSource, MAX_YAML_BYTES } from '../../src/spec/source.js';
-import { isCalendarDate } from '../../src/spec/validate.js';
+import { loadPartText } from '../../src/part-file/load.js';
+import { parseQuantity } from '../../src/part-file/quantity.js';
+import { decodeYamlSource, MAX_YAML_BYTES } from '../../src/part-file/source.js';
+import { isCalendarDate } from '../../src/part-file/validate.js';
 
 const good = `part: XQ-1
 class: filter

@@ -4,7 +4,7 @@
  */
 import { parse as parseYaml } from 'yaml';
 import { describe, expect, it } from 'vitest';
-import { loadPartText } from '../../src/spec/load.js';
+import { loadPartText } from '../../src/part-file/load.js';
 
 const good = `part: XQ-1
 class: filter
