@@ -13,10 +13,11 @@ export function networkOf(freqHz: number[], z0: number | number[], sAt: (f: numb
   const s = new Float64Array(freqHz.length * n * n * 2);
   freqHz.forEach((f, k) => {
     const m = k === 0 ? m0 : sAt(f, k);
-    for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {
-      s[2 * ((k * n + i) * n + j)] = m[i][j][0];
-      s[2 * ((k * n + i) * n + j) + 1] = m[i][j][1];
-    }
+    for (let i = 0; i < n; i++)
+      for (let j = 0; j < n; j++) {
+        s[2 * ((k * n + i) * n + j)] = m[i][j][0];
+        s[2 * ((k * n + i) * n + j) + 1] = m[i][j][1];
+      }
   });
   const z = typeof z0 === 'number' ? new Float64Array(n).fill(z0) : Float64Array.from(z0);
   return makeNetwork(Float64Array.from(freqHz), z, s, n);
@@ -40,7 +41,10 @@ export function expectClose(actual: number, expected: number, tol: number, what 
 
 export function expectComplexClose(actual: Cx, expected: Cx, tol: number, what = ''): void {
   const d = Math.hypot(actual[0] - expected[0], actual[1] - expected[1]);
-  if (!(d <= tol)) throw new Error(`${what ? what + ': ' : ''}expected ${expected[0]}${expected[1] >= 0 ? '+' : ''}${expected[1]}j ± ${tol}, got ${actual[0]}${actual[1] >= 0 ? '+' : ''}${actual[1]}j`);
+  if (!(d <= tol))
+    throw new Error(
+      `${what ? what + ': ' : ''}expected ${expected[0]}${expected[1] >= 0 ? '+' : ''}${expected[1]}j ± ${tol}, got ${actual[0]}${actual[1] >= 0 ? '+' : ''}${actual[1]}j`,
+    );
 }
 
 /** Largest |a − b| over arrays, or over interleaved complex arrays. */
@@ -64,10 +68,21 @@ const compile = makeCompiler(create(all));
  * Loads part YAML from a string and evaluates it against networks given by
  * unit name (no files): the figure engine end to end without the shell.
  */
-export function evaluateYaml(yaml: string, networks: Record<string, Network>, noise: Record<string, NoiseParameters | null> = {}): { result: PartResult | null; errors: readonly SpecError[] } {
+export function evaluateYaml(
+  yaml: string,
+  networks: Record<string, Network>,
+  noise: Record<string, NoiseParameters | null> = {},
+): { result: PartResult | null; errors: readonly SpecError[] } {
   const loaded = loadPartText(yaml, 'part.yaml', compile);
   if (!loaded.value) return { result: null, errors: loaded.errors };
-  const units = loaded.value.measurements.map((m) => ({ unit: m.label, file: m.file, network: networks[m.unit], noise: noise[m.unit] ?? null, conditions: m.conditions, fileAt: m.fileAt }));
+  const units = loaded.value.measurements.map((m) => ({
+    unit: m.label,
+    file: m.file,
+    network: networks[m.unit],
+    noise: noise[m.unit] ?? null,
+    conditions: m.conditions,
+    fileAt: m.fileAt,
+  }));
   const r = evaluatePart(loaded.value, units);
   return { result: r.value, errors: r.errors };
 }
@@ -81,6 +96,8 @@ export function resultsOf(yaml: string, networks: Record<string, Network>, noise
 
 /** A minimal part around the given limits, with one measurement per unit name. */
 export function partYaml(opts: { cls?: string; units: string[]; bands: string; limits: string; extra?: string; conditions?: Record<string, string> }): string {
-  const ms = opts.units.map((u) => `  - {unit: ${u}, file: ${u}.s4p${opts.conditions?.[u] ? `, conditions: {temperature: ${opts.conditions[u]}}` : ''}}`).join('\n');
+  const ms = opts.units
+    .map((u) => `  - {unit: ${u}, file: ${u}.s4p${opts.conditions?.[u] ? `, conditions: {temperature: ${opts.conditions[u]}}` : ''}}`)
+    .join('\n');
   return `part: T-1\nclass: ${opts.cls ?? 'generic'}\nrevision: A\nmeasurements:\n${ms}\nbands:\n${opts.bands}\nlimits:\n${opts.limits}\n${opts.extra ?? ''}`;
 }

@@ -10,7 +10,9 @@ import { PREREQUISITES } from './support/prerequisites.js';
 
 export default class SummaryReporter implements Reporter {
   onTestRunEnd(modules: ReadonlyArray<TestModule>): void {
-    let passed = 0, failed = 0, skipped = 0;
+    let passed = 0,
+      failed = 0,
+      skipped = 0;
     const skippedIn = new Map<string, number>();
     for (const m of modules) {
       if (m.errors().length > 0) failed++; // the file did not load, or a hook outside any test failed

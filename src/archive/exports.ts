@@ -19,24 +19,72 @@ import { writeTouchstone } from '../touchstone/write.js';
 import { medianText } from '../io/spilled.js';
 
 export const CSV_COLUMNS = [
-  'part', 'revision', 'figure', 'on', 'band', 'from_hz', 'to_hz', 'unit',
-  'limit_min', 'limit_max', 'limit_nominal', 'limit_tolerance', 'change_from', 'change_to',
-  'worst', 'worst_at_hz', 'worst_unit', 'typical', 'margin', 'pass',
-  'measurement', 'measurement_worst', 'measurement_at_hz', 'measurement_margin', 'measurement_pass',
+  'part',
+  'revision',
+  'figure',
+  'on',
+  'band',
+  'from_hz',
+  'to_hz',
+  'unit',
+  'limit_min',
+  'limit_max',
+  'limit_nominal',
+  'limit_tolerance',
+  'change_from',
+  'change_to',
+  'worst',
+  'worst_at_hz',
+  'worst_unit',
+  'typical',
+  'margin',
+  'pass',
+  'measurement',
+  'measurement_worst',
+  'measurement_at_hz',
+  'measurement_margin',
+  'measurement_pass',
 ] as const;
 
 type Json = { part: string; revision: string; results: Array<Record<string, unknown> & { units: Array<Record<string, unknown>> }> };
 
-const cellText = (v: unknown): string => (v === null || v === undefined ? '' : typeof v === 'number' ? String(v) : typeof v === 'boolean' ? String(v) : String(v));
+const cellText = (v: unknown): string =>
+  v === null || v === undefined ? '' : typeof v === 'number' ? String(v) : typeof v === 'boolean' ? String(v) : String(v);
 const quote = (s: string) => (/[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s);
-const stage = (c: unknown) => (c && typeof c === 'object' ? Object.entries(c as Record<string, string>).map(([k, v]) => `${k}=${v}`).join(';') : '');
+const stage = (c: unknown) =>
+  c && typeof c === 'object'
+    ? Object.entries(c as Record<string, string>)
+        .map(([k, v]) => `${k}=${v}`)
+        .join(';')
+    : '';
 
 /** The CSV rows (without the header) of one part's figures --json. */
 export function csvRows(j: Json): string[] {
   return j.results.flatMap((r) => {
     const limit = (r.limit ?? {}) as Record<string, unknown>;
     const change = r.change as { from: unknown; to: unknown } | undefined;
-    const head = [j.part, j.revision, r.figure, (r.on as string[]).join(' '), r.band, r.fromHz, r.toHz, r.unit, limit.min, limit.max, limit.nominal, limit.tolerance, stage(change?.from), stage(change?.to), r.worst, r.worstAtHz, r.worstUnit, r.typical, r.margin, r.pass];
+    const head = [
+      j.part,
+      j.revision,
+      r.figure,
+      (r.on as string[]).join(' '),
+      r.band,
+      r.fromHz,
+      r.toHz,
+      r.unit,
+      limit.min,
+      limit.max,
+      limit.nominal,
+      limit.tolerance,
+      stage(change?.from),
+      stage(change?.to),
+      r.worst,
+      r.worstAtHz,
+      r.worstUnit,
+      r.typical,
+      r.margin,
+      r.pass,
+    ];
     return r.units.map((u) => [...head, u.unit, u.worst, u.atHz, u.margin, u.pass].map((v) => quote(cellText(v))).join(','));
   });
 }
@@ -67,14 +115,25 @@ export function medianTouchstone(part: string, revision: string, labels: readonl
     format: 'RI',
     comments: [
       `DERIVED DATA, not a measurement: the median of ${labels.length} measurements of ${part}${revision ? ` revision ${revision}` : ''} (${labels.join(', ')})`,
-      'At each frequency, each S entry\'s real and imaginary parts are each the median over the measurements; made by scatterbook',
+      "At each frequency, each S entry's real and imaginary parts are each the median over the measurements; made by scatterbook",
     ],
   });
 }
 
 /** Writes the exports of a built catalog into its site folder (the staging folder of a build). */
 export function writeExports(
-  catalog: { readonly parts: ReadonlyArray<{ readonly slug: string; readonly figuresJson: string; readonly exports: { readonly json: string; readonly csv: string; readonly median: { readonly url: string; readonly text: string; readonly file?: string } | null } }>; readonly version: string },
+  catalog: {
+    readonly parts: ReadonlyArray<{
+      readonly slug: string;
+      readonly figuresJson: string;
+      readonly exports: {
+        readonly json: string;
+        readonly csv: string;
+        readonly median: { readonly url: string; readonly text: string; readonly file?: string } | null;
+      };
+    }>;
+    readonly version: string;
+  },
   siteDir: string,
   write: (path: string, text: string) => void,
   options: { readonly medians?: boolean } = {},

@@ -31,7 +31,9 @@ export interface LotSummary {
 
 export function summarize(values: readonly number[], limit: CheckResult['limit']): LotSummary {
   const n = values.length;
-  let sum = 0, min = Infinity, max = -Infinity;
+  let sum = 0,
+    min = Infinity,
+    max = -Infinity;
   for (const v of values) {
     sum += v;
     if (v < min) min = v;
@@ -76,9 +78,19 @@ export interface LotGroup {
  * Over all units and per lot a unit counts once, with its worst over its
  * measurements; per condition, each measurement under it.
  */
-export function lotStatistics(r: CheckResult, info: (unit: string) => { serial: string; lot: string | null; conditions: Readonly<Record<string, string>> }): { all: LotGroup; allWorsts: number[]; lots: LotGroup[]; conditions: LotGroup[]; conditionSpread: number | null } {
+export function lotStatistics(
+  r: CheckResult,
+  info: (unit: string) => { serial: string; lot: string | null; conditions: Readonly<Record<string, string>> },
+): { all: LotGroup; allWorsts: number[]; lots: LotGroup[]; conditions: LotGroup[]; conditionSpread: number | null } {
   const byMargin = (units: CheckResult['units']) => units.reduce((w, u) => ((u.margin ?? 0) < (w.margin ?? 0) ? u : w), units[0]);
-  const group = (label: string, units: CheckResult['units']): LotGroup => ({ label, summary: summarize(units.map((u) => u.worst), r.limit), worst: (r.limit ? byMargin(units) : units[0]).worst });
+  const group = (label: string, units: CheckResult['units']): LotGroup => ({
+    label,
+    summary: summarize(
+      units.map((u) => u.worst),
+      r.limit,
+    ),
+    worst: (r.limit ? byMargin(units) : units[0]).worst,
+  });
   const split = (key: (u: CheckResult['units'][number]) => string | null) => {
     const m = new Map<string, CheckResult['units'][number][]>();
     for (const u of r.units) {
@@ -113,13 +125,21 @@ export function stripSvg(values: readonly number[], limit: CheckResult['limit'],
   }
   const xs = [...values, ...lines].map((v) => v * scale).filter(Number.isFinite);
   if (!xs.length) return '';
-  let lo = Math.min(...xs), hi = Math.max(...xs);
+  let lo = Math.min(...xs),
+    hi = Math.max(...xs);
   const pad = (hi - lo) * 0.08 || Math.abs(hi) * 0.05 || 1;
   lo -= pad;
   hi += pad;
-  const W = 200, H = 22;
+  const W = 200,
+    H = 22;
   const x = (v: number) => (((v * scale - lo) / (hi - lo)) * W).toFixed(1);
-  const ticks = values.filter(Number.isFinite).map((v) => `<line x1="${x(v)}" x2="${x(v)}" y1="5" y2="17" stroke="#1f4e8c" stroke-width="1.6" stroke-opacity="0.8"/>`).join('');
-  const limits = lines.filter(Number.isFinite).map((v) => `<line x1="${x(v)}" x2="${x(v)}" y1="1" y2="21" stroke="#c0392b" stroke-width="1.4" stroke-dasharray="3 2"/>`).join('');
+  const ticks = values
+    .filter(Number.isFinite)
+    .map((v) => `<line x1="${x(v)}" x2="${x(v)}" y1="5" y2="17" stroke="#1f4e8c" stroke-width="1.6" stroke-opacity="0.8"/>`)
+    .join('');
+  const limits = lines
+    .filter(Number.isFinite)
+    .map((v) => `<line x1="${x(v)}" x2="${x(v)}" y1="1" y2="21" stroke="#c0392b" stroke-width="1.4" stroke-dasharray="3 2"/>`)
+    .join('');
   return `<svg class="strip" width="${W}" height="${H}" viewBox="0 0 ${W} ${H}" role="img" aria-label="${values.length} unit worsts (blue ticks) against the limit (red dashes)"><line x1="0" x2="${W}" y1="11" y2="11" stroke="#c8ccd2"/>${limits}${ticks}</svg>`;
 }

@@ -32,14 +32,20 @@ export interface Manifest {
   readonly outputs: ReadonlyArray<ManifestFile & { readonly bytes: number }>;
 }
 
-const entry = (slug: string, i: Inputs): ManifestEntry => ({ slug, fingerprint: i.fingerprint, spec: i.spec, data: i.data.map((d) => ({ unit: d.unit, path: d.path, sha256: d.sha256 })) });
+const entry = (slug: string, i: Inputs): ManifestEntry => ({
+  slug,
+  fingerprint: i.fingerprint,
+  spec: i.spec,
+  data: i.data.map((d) => ({ unit: d.unit, path: d.path, sha256: d.sha256 })),
+});
 
 /** Every regular file under `root` but the manifest itself, by path relative to it (with /), in code-point order. */
 export function siteFiles(root: string): string[] {
   const out: string[] = [];
   const walk = (dir: string, rel: string) => {
     for (const name of readdirSync(dir)) {
-      const path = join(dir, name), r = rel ? `${rel}/${name}` : name;
+      const path = join(dir, name),
+        r = rel ? `${rel}/${name}` : name;
       const st = lstatSync(path);
       if (st.isDirectory()) walk(path, r);
       else if (st.isFile() && r !== MANIFEST) out.push(r);
@@ -54,7 +60,13 @@ export function buildManifest(catalog: Catalog, siteDir: string, version: string
   return {
     manifestVersion: MANIFEST_VERSION,
     tool: { name: 'scatterbook', version },
-    parts: catalog.parts.map((p) => ({ ...entry(p.slug, p.inputs), part: p.part, revision: p.revision, pass: p.pass, figures: JSON.parse(p.figuresJson) as unknown })),
+    parts: catalog.parts.map((p) => ({
+      ...entry(p.slug, p.inputs),
+      part: p.part,
+      revision: p.revision,
+      pass: p.pass,
+      figures: JSON.parse(p.figuresJson) as unknown,
+    })),
     comparisons: catalog.comparisons.map((c) => ({ ...entry(c.slug, c.inputs), title: c.title })),
     outputs: siteFiles(siteDir).map((path) => {
       const bytes = readFileSync(join(siteDir, path));

@@ -63,7 +63,9 @@ export function recordText(r: ReleaseRecord): string {
     `spec: ${r.spec.sha256} ${r.spec.path}`,
     ...r.data.map((d) => `data: ${d.sha256} ${d.path}`),
     ...r.documents.map((d) => `document: ${d.sha256} ${d.path}`),
-    ...r.figures.map((f) => `figure: ${f.key} | worst ${num(f.worst)} ${f.unit || '-'} | margin ${num(f.margin)} | ${f.pass === null ? 'report' : f.pass ? 'pass' : 'fail'}`),
+    ...r.figures.map(
+      (f) => `figure: ${f.key} | worst ${num(f.worst)} ${f.unit || '-'} | margin ${num(f.margin)} | ${f.pass === null ? 'report' : f.pass ? 'pass' : 'fail'}`,
+    ),
     '',
   ].join('\n');
 }
@@ -71,7 +73,9 @@ export function recordText(r: ReleaseRecord): string {
 /** A record's text → the record, or the line that is not one. */
 export function parseRecord(text: string): { value: ReleaseRecord } | { line: number; message: string } {
   const fields = new Map<string, string>();
-  const data: RecordedFile[] = [], documents: RecordedFile[] = [], figures: RecordedFigure[] = [];
+  const data: RecordedFile[] = [],
+    documents: RecordedFile[] = [],
+    figures: RecordedFigure[] = [];
   let spec: RecordedFile | null = null;
   const lines = text.split(/\r?\n/);
   for (const [i, raw] of lines.entries()) {
@@ -141,7 +145,8 @@ export function figureChanges(before: readonly RecordedFigure[], after: readonly
     else {
       const parts: string[] = [];
       if (formatValue(o.worst, o.unit) !== formatValue(f.worst, f.unit)) parts.push(`worst ${formatValue(o.worst, o.unit)} → ${formatValue(f.worst, f.unit)}`);
-      if (formatValue(o.margin, o.unit) !== formatValue(f.margin, f.unit)) parts.push(`margin ${formatValue(o.margin, o.unit)} → ${formatValue(f.margin, f.unit)}${parts.length ? '' : ' (the limit changed)'}`);
+      if (formatValue(o.margin, o.unit) !== formatValue(f.margin, f.unit))
+        parts.push(`margin ${formatValue(o.margin, o.unit)} → ${formatValue(f.margin, f.unit)}${parts.length ? '' : ' (the limit changed)'}`);
       if (o.pass !== f.pass) parts.push(`${o.pass ? 'pass' : 'fail'} → ${f.pass ? 'pass' : 'fail'}`);
       if (parts.length) out.push(`${f.key}: ${parts.join(', ')}`);
     }

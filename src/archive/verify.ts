@@ -21,11 +21,28 @@ export interface VerifyReport {
   readonly unreadable: string | null;
 }
 
-type Result = { figure: string; on: string[]; band: string; worst: unknown; worstAtHz: unknown; typical: unknown; margin: unknown; pass: unknown; units: Array<{ unit: string; worst: unknown; margin: unknown; pass: unknown }> };
+type Result = {
+  figure: string;
+  on: string[];
+  band: string;
+  worst: unknown;
+  worstAtHz: unknown;
+  typical: unknown;
+  margin: unknown;
+  pass: unknown;
+  units: Array<{ unit: string; worst: unknown; margin: unknown; pass: unknown }>;
+};
 
 export async function verifySite(siteDir: string, contentDir: string | null): Promise<VerifyReport> {
   const file = join(siteDir, MANIFEST);
-  if (!existsSync(file)) return { differences: [], outputs: 0, inputs: 0, figures: 0, unreadable: `${MANIFEST} is missing: this is not a site scatterbook built (or it was built before manifests)` };
+  if (!existsSync(file))
+    return {
+      differences: [],
+      outputs: 0,
+      inputs: 0,
+      figures: 0,
+      unreadable: `${MANIFEST} is missing: this is not a site scatterbook built (or it was built before manifests)`,
+    };
   let m: Manifest;
   try {
     m = JSON.parse(readFileSync(file, 'utf8')) as Manifest;
@@ -44,7 +61,8 @@ export async function verifySite(siteDir: string, contentDir: string | null): Pr
     }
   }
   for (const path of siteFiles(siteDir)) if (!listed.has(path)) differences.push(`${path}: in the site but not in the manifest`);
-  let inputs = 0, figures = 0;
+  let inputs = 0,
+    figures = 0;
   if (contentDir) {
     const check = (f: ManifestFile) => {
       inputs++;
@@ -73,11 +91,13 @@ export async function verifySite(siteDir: string, contentDir: string | null): Pr
         if (!n) return;
         figures++;
         const name = `${p.spec.path}: ${b.figure} ${b.on.join(' ')} over ${b.band}`;
-        for (const k of ['worst', 'worstAtHz', 'typical', 'margin', 'pass'] as const) if (b[k] !== n[k]) differences.push(`${name}: ${k} ${String(b[k])} published, ${String(n[k])} now`);
+        for (const k of ['worst', 'worstAtHz', 'typical', 'margin', 'pass'] as const)
+          if (b[k] !== n[k]) differences.push(`${name}: ${k} ${String(b[k])} published, ${String(n[k])} now`);
         b.units.forEach((u, j) => {
           const nu = n.units[j];
           if (!nu || nu.unit !== u.unit) return differences.push(`${name}: unit ${u.unit} published, ${nu?.unit ?? 'none'} now`);
-          for (const k of ['worst', 'margin', 'pass'] as const) if (u[k] !== nu[k]) differences.push(`${name}: unit ${u.unit} ${k} ${String(u[k])} published, ${String(nu[k])} now`);
+          for (const k of ['worst', 'margin', 'pass'] as const)
+            if (u[k] !== nu[k]) differences.push(`${name}: unit ${u.unit} ${k} ${String(u[k])} published, ${String(nu[k])} now`);
         });
       });
     }

@@ -49,15 +49,17 @@ export interface ClassDef {
 
 const loss = ['insertion-loss', 'rejection'];
 
-const POWER = 'Do not exceed the maximum ratings: RF input power above them, or DC applied to RF ports that are not rated for it, can damage the part permanently.';
+const POWER =
+  'Do not exceed the maximum ratings: RF input power above them, or DC applied to RF ports that are not rated for it, can damage the part permanently.';
 const ESD =
-  'Electrostatic-discharge sensitive: handle with grounded wrist straps on a grounded work surface; the part\'s HBM and CDM class (ANSI/ESDA/JEDEC JS-001, JS-002) is stated by the vendor where it is known.';
+  "Electrostatic-discharge sensitive: handle with grounded wrist straps on a grounded work surface; the part's HBM and CDM class (ANSI/ESDA/JEDEC JS-001, JS-002) is stated by the vendor where it is known.";
 const BIAS = 'Apply bias in the stated sequence and only with the RF ports terminated; remove RF drive before removing bias.';
 const HOT = 'At high power the body gets hot: mount it on a heat sink of adequate rating and let it cool before handling.';
 const EXPOSURE =
   'RF exposure: terminate every output in a rated load before applying power, and never look into or stand near an open energised connector or waveguide. Exposure limits are set by IEEE C95.1-2019, ICNIRP (2020) and local regulation.';
 const FERRITE = 'Ferrite parts contain permanent magnets: keep them away from magnetic media, steel tools and other ferrite parts, whose fields detune them.';
-const CABLE = 'Do not bend the cable tighter than its minimum bend radius or twist the connectors against each other; tighten connectors with a calibrated torque wrench.';
+const CABLE =
+  'Do not bend the cable tighter than its minimum bend radius or twist the connectors against each other; tighten connectors with a calibrated torque wrench.';
 
 const RECORDS = [
   {

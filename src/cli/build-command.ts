@@ -61,12 +61,17 @@ export interface BuildOptions {
 function parseShard(v: string | true | undefined): { k: number; n: number } | null {
   if (v === undefined) return null;
   const m = typeof v === 'string' ? /^(\d+)\/(\d+)$/.exec(v) : null;
-  const k = m ? Number(m[1]) : NaN, n = m ? Number(m[2]) : NaN;
+  const k = m ? Number(m[1]) : NaN,
+    n = m ? Number(m[2]) : NaN;
   if (!m || !(n >= 1) || !(k >= 1) || k > n) throw new UsageError(`--shard ${String(v)}: expected K/N with 1 ≤ K ≤ N, e.g. --shard 2/4`);
   return { k, n };
 }
 
-export function buildOptions(argv: readonly string[], t: Terminal, flags: readonly FlagSpec[] = BUILD_FLAGS): BuildOptions & { flags: Map<string, string | true> } {
+export function buildOptions(
+  argv: readonly string[],
+  t: Terminal,
+  flags: readonly FlagSpec[] = BUILD_FLAGS,
+): BuildOptions & { flags: Map<string, string | true> } {
   return buildOptionsOf(parseArgs(argv, flags), t);
 }
 
@@ -79,7 +84,16 @@ export function buildOptionsOf(args: ParsedArgs, t: Terminal): BuildOptions & { 
   const cacheDir = args.flags.has('no-cache') ? null : resolve(t.cwd, typeof cacheFlag === 'string' ? cacheFlag : join(out, '..', '.scatterbook-cache'));
   if (args.flags.has('pdf') && args.flags.has('no-pdf')) throw new UsageError('--pdf and --no-pdf contradict each other');
   const pdf = args.flags.has('no-pdf') ? 'off' : args.flags.has('pdf') ? 'required' : 'auto';
-  return { content, out, keepGoing: args.flags.has('keep-going'), cacheDir, pdf, browser: args.flags.get('browser') as string | undefined, shard: parseShard(args.flags.get('shard')), flags: args.flags };
+  return {
+    content,
+    out,
+    keepGoing: args.flags.has('keep-going'),
+    cacheDir,
+    pdf,
+    browser: args.flags.get('browser') as string | undefined,
+    shard: parseShard(args.flags.get('shard')),
+    flags: args.flags,
+  };
 }
 
 export interface BuildOutcome {
@@ -103,7 +117,8 @@ export async function runBuild(o: BuildOptions, t: Terminal): Promise<BuildOutco
   const shownOut = rel(o.out).startsWith('..') ? o.out : rel(o.out);
   const refusal = outputRefusal(o.out, { content: o.content, cwd: t.cwd, home: t.env.HOME }, shownOut);
   if (refusal) return fail(refusal);
-  if (o.cacheDir && existsSync(o.cacheDir) && !statSync(o.cacheDir).isDirectory()) return fail(`--cache ${rel(o.cacheDir)}: is a file, not a folder; name a folder (it is created when missing) or pass --no-cache`);
+  if (o.cacheDir && existsSync(o.cacheDir) && !statSync(o.cacheDir).isDirectory())
+    return fail(`--cache ${rel(o.cacheDir)}: is a file, not a folder; name a folder (it is created when missing) or pass --no-cache`);
   removeDeadBuilds(o.out);
   try {
     return await buildAndPublish(o, t, started);
@@ -150,9 +165,20 @@ async function buildWith(o: BuildOptions, t: Terminal, started: number, spillDir
   const none = catalog.parts.length === 0 && !(o.shard && partFolders(o.content).length > 0);
   if (siteErrors.length || (catalog.failures.length && !o.keepGoing) || none) {
     const files = catalog.failures.length + siteErrors.length;
-    const why = catalog.parts.length === 0 && !catalog.failures.length && !siteErrors.length ? `no parts found: expected ${rel(join(o.content, 'parts'))}/<slug>/part.yaml` : `${files} file${files === 1 ? '' : 's'} with errors`;
-    t.stderr.write(`${p.red('error:')} ${why}; nothing was written (${rel(o.out)} is unchanged)${catalog.failures.length && !o.keepGoing ? '; --keep-going publishes the parts that build' : ''}\n`);
-    return { code: internalFault(catalog) ? EXIT.internal : 1, parts: catalog.parts.length, failed: catalog.failures.length, failing: 0, ms: performance.now() - started };
+    const why =
+      catalog.parts.length === 0 && !catalog.failures.length && !siteErrors.length
+        ? `no parts found: expected ${rel(join(o.content, 'parts'))}/<slug>/part.yaml`
+        : `${files} file${files === 1 ? '' : 's'} with errors`;
+    t.stderr.write(
+      `${p.red('error:')} ${why}; nothing was written (${rel(o.out)} is unchanged)${catalog.failures.length && !o.keepGoing ? '; --keep-going publishes the parts that build' : ''}\n`,
+    );
+    return {
+      code: internalFault(catalog) ? EXIT.internal : 1,
+      parts: catalog.parts.length,
+      failed: catalog.failures.length,
+      failing: 0,
+      ms: performance.now() - started,
+    };
   }
   // PDFs need a browser; look for it before the pages are written, since they link their PDFs
   let found: FoundBrowser | null = null;
@@ -183,12 +209,19 @@ async function buildWith(o: BuildOptions, t: Terminal, started: number, spillDir
         onDone: (done, total) => bar.update(`PDFs ${done}/${total}`),
       });
       bar.done();
-      for (const r of report.refused) t.stderr.write(`${p.yellow('warning:')} ${printable(r.page)} asked for ${printable(r.url)}, which was refused: pages may load only files of the site\n`);
+      for (const r of report.refused)
+        t.stderr.write(
+          `${p.yellow('warning:')} ${printable(r.page)} asked for ${printable(r.url)}, which was refused: pages may load only files of the site\n`,
+        );
       const rate = report.printed / Math.max(report.printMs / 1000, 1e-3);
       pdfNote = `, ${report.printed} PDF${report.printed === 1 ? '' : 's'} (${rate.toFixed(1)} per second after the browser started)`;
     }
     // a slice records what merge needs to join it without rendering anything again
-    if (o.shard) writeFileSync(join(staging.dir, SHARD_RECORD), JSON.stringify({ format: 1, shard: o.shard, tool: toolBuildId(), version: packageVersion(), content: o.content, catalog: site }));
+    if (o.shard)
+      writeFileSync(
+        join(staging.dir, SHARD_RECORD),
+        JSON.stringify({ format: 1, shard: o.shard, tool: toolBuildId(), version: packageVersion(), content: o.content, catalog: site }),
+      );
     // last: the marker, the exports and the manifest, which hashes every file the site holds
     sealSite(site, staging.dir, packageVersion());
     swapInto(staging);
@@ -206,7 +239,9 @@ async function buildWith(o: BuildOptions, t: Terminal, started: number, spillDir
     const rows = page.compliance.filter((r) => r.verdict === 'FAIL');
     if (rows.length) failing++;
     for (const r of rows) {
-      t.stderr.write(`${p.yellow('warning:')} ${printable(page.part)} fails ${printable(r.label)} on ${printable(r.on)} over ${printable(r.band)}: worst ${r.worst.text} (${printable(r.worstUnit)}${r.at.value !== null ? ` at ${r.at.text}` : ''}) against ${r.limit}\n`);
+      t.stderr.write(
+        `${p.yellow('warning:')} ${printable(page.part)} fails ${printable(r.label)} on ${printable(r.on)} over ${printable(r.band)}: worst ${r.worst.text} (${printable(r.worstUnit)}${r.at.value !== null ? ` at ${r.at.text}` : ''}) against ${r.limit}\n`,
+      );
     }
   }
   t.stdout.write(

@@ -53,7 +53,10 @@ export function requirementYaml(files: readonly string[], band: string, limits: 
     return `  - {figure: ${JSON.stringify(m[1])}, on: ${JSON.stringify(m[2].split('+'))}, band: use, ${bounds.join(', ')}}`;
   });
   const units = files.map((f, i) => `  - {unit: ${JSON.stringify(`c${i + 1}`)}, file: ${JSON.stringify(basename(f))}}`);
-  return { yaml: `part: comparison\nclass: generic\nmeasurements:\n${units.join('\n')}\nbands:\n  use: {from: ${JSON.stringify(from ?? '')}, to: ${JSON.stringify(to ?? '')}}\nlimits:\n${lines.join('\n')}\n`, problems };
+  return {
+    yaml: `part: comparison\nclass: generic\nmeasurements:\n${units.join('\n')}\nbands:\n  use: {from: ${JSON.stringify(from ?? '')}, to: ${JSON.stringify(to ?? '')}}\nlimits:\n${lines.join('\n')}\n`,
+    problems,
+  };
 }
 
 /** The side-by-side table: limits as rows, candidates as columns, the best margin of a row marked, the rank row, then the reasons and gaps. */
@@ -67,15 +70,33 @@ function table(requirement: NormalizedPart, results: readonly CandidateResult[],
     return [
       printable(`${check.label} ${check.on.join(' ')} over ${check.band.name}`),
       formatLimit(check.limit, check.figure.unit),
-      ...cells.map((r) => (r ? `${formatValue(r.worst, r.unit, resolution)} ${r.pass === false ? p.red('FAIL') : p.green('PASS')}${best !== null && r.margin === best ? ' *' : ''}` : 'no data')),
+      ...cells.map((r) =>
+        r
+          ? `${formatValue(r.worst, r.unit, resolution)} ${r.pass === false ? p.red('FAIL') : p.green('PASS')}${best !== null && r.margin === best ? ' *' : ''}`
+          : 'no data',
+      ),
     ];
   });
   rows.push(['rank', '', ...results.map((c) => (c.rank === null ? `— (${c.coverage === 'partial' ? 'partial data' : 'errors'})` : String(c.rank)))]);
   const visible = (x: string) => x.replace(/\x1b\[[0-9;]*m/g, '').length;
   const widths = head.map((_, i) => Math.max(head[i].length, ...rows.map((r) => visible(r[i]))));
-  const line = (cells: string[]) => cells.map((c, i) => c + ' '.repeat(Math.max(0, widths[i] - visible(c)))).join('  ').trimEnd();
+  const line = (cells: string[]) =>
+    cells
+      .map((c, i) => c + ' '.repeat(Math.max(0, widths[i] - visible(c))))
+      .join('  ')
+      .trimEnd();
   const gaps = results.flatMap((c) => bandGaps(c).map((g) => `${printable(c.label)}: ${gapText(g)}`));
-  return [p.bold(line(head)), ...rows.map(line), '', ...reasons.map(printable), ...(gaps.length ? ['', ...gaps] : []), '', '* the largest margin of the row; worst values over the band, PASS/FAIL against the requirement'].join('\n') + '\n';
+  return (
+    [
+      p.bold(line(head)),
+      ...rows.map(line),
+      '',
+      ...reasons.map(printable),
+      ...(gaps.length ? ['', ...gaps] : []),
+      '',
+      '* the largest margin of the row; worst values over the band, PASS/FAIL against the requirement',
+    ].join('\n') + '\n'
+  );
 }
 
 /** `compare COMPARISON.yaml`: the comparison file's candidates against its requirement. */
@@ -96,7 +117,11 @@ async function compareFile(file: string, args: ReturnType<typeof parseArgs>, t: 
       const lines = outcome.differences.flatMap((d) =>
         d.limits.flatMap((l) => {
           const check = c.requirement.checks[l.check];
-          return l.worst === null ? [] : [`  ${printable(d.label)}: ${check.label} ${check.on.join(' ')} over ${check.band.name}: ${l.worst > 0 ? '+' : ''}${formatValue(l.worst, check.figure.unit)}`];
+          return l.worst === null
+            ? []
+            : [
+                `  ${printable(d.label)}: ${check.label} ${check.on.join(' ')} over ${check.band.name}: ${l.worst > 0 ? '+' : ''}${formatValue(l.worst, check.figure.unit)}`,
+              ];
         }),
       );
       if (lines.length) text += `\nworst minus the worst of ${printable(c.baseline)}:\n${lines.join('\n')}\n`;
@@ -108,13 +133,16 @@ async function compareFile(file: string, args: ReturnType<typeof parseArgs>, t: 
 
 export const compareCommand: Command = {
   name: 'compare',
-  usage: 'scatterbook compare COMPARISON.yaml [--json] [--strict]\n       scatterbook compare FILE… --band FROM..TO [--limit "FIGURE ON max|min VALUE"]… [--reference OHMS] [--json] [--strict]',
+  usage:
+    'scatterbook compare COMPARISON.yaml [--json] [--strict]\n       scatterbook compare FILE… --band FROM..TO [--limit "FIGURE ON max|min VALUE"]… [--reference OHMS] [--json] [--strict]',
   flags: FLAGS,
   async run(argv, t) {
     const args = parseArgs(argv, FLAGS);
     if (!args.positionals.length) throw new UsageError('compare takes a comparison file, or one or more Touchstone files with --band');
     if (args.positionals.length === 1 && /\.ya?ml$/i.test(args.positionals[0])) {
-      for (const f of ['band', 'limit', 'reference']) if (args.flags.has(f) || args.values.has(f)) throw new UsageError(`--${f} belongs to the quick form; a comparison file sets its own bands, limits and reference`);
+      for (const f of ['band', 'limit', 'reference'])
+        if (args.flags.has(f) || args.values.has(f))
+          throw new UsageError(`--${f} belongs to the quick form; a comparison file sets its own bands, limits and reference`);
       return compareFile(args.positionals[0], args, t);
     }
     const band = args.flags.get('band');
@@ -133,7 +161,15 @@ export const compareCommand: Command = {
     if (!loaded.value) {
       // positions in the generated text are no use to the user: name the flag instead
       const limitLine = yaml.split('\n').indexOf('limits:') + 1;
-      return fail(loaded.errors.map((e) => (e.line > limitLine && limits[e.line - limitLine - 1] ? `--limit "${limits[e.line - limitLine - 1]}": ${e.message}` : e.line > 0 && e.line <= limitLine ? `--band "${band}": ${e.message}` : e.message)));
+      return fail(
+        loaded.errors.map((e) =>
+          e.line > limitLine && limits[e.line - limitLine - 1]
+            ? `--limit "${limits[e.line - limitLine - 1]}": ${e.message}`
+            : e.line > 0 && e.line <= limitLine
+              ? `--band "${band}": ${e.message}`
+              : e.message,
+        ),
+      );
     }
     const candidates = [];
     let unreadable = false;
@@ -145,7 +181,20 @@ export const compareCommand: Command = {
         unreadable = true;
         continue;
       }
-      candidates.push({ label: basename(f), units: [{ unit: basename(f), file: f, network: r.value.network, noise: r.value.noise, mixedModeOrder: r.value.info.mixedModeOrder, conditions: {}, fileAt: loaded.value.measurements[i].fileAt }] });
+      candidates.push({
+        label: basename(f),
+        units: [
+          {
+            unit: basename(f),
+            file: f,
+            network: r.value.network,
+            noise: r.value.noise,
+            mixedModeOrder: r.value.info.mixedModeOrder,
+            conditions: {},
+            fileAt: loaded.value.measurements[i].fileAt,
+          },
+        ],
+      });
     }
     if (unreadable) return EXIT.badInput;
     const results = compareCandidates(loaded.value, candidates, reference);
@@ -153,7 +202,9 @@ export const compareCommand: Command = {
     const bad = results.flatMap((c) => c.errors.map((e) => `${c.label}: ${e.message}`));
     if (bad.length) return fail(bad);
     const title = `Quick comparison over ${bandRange(loaded.value.bands.get('use')?.fromHz ?? 0, loaded.value.bands.get('use')?.toHz ?? 0)}`;
-    t.stdout.write(args.flags.has('json') ? `${JSON.stringify(comparisonJson(title, reference, results), null, 2)}\n` : table(loaded.value, results, reasons, t));
+    t.stdout.write(
+      args.flags.has('json') ? `${JSON.stringify(comparisonJson(title, reference, results), null, 2)}\n` : table(loaded.value, results, reasons, t),
+    );
     return args.flags.has('strict') && results.some((c) => !c.pass) ? EXIT.limitFailed : EXIT.ok;
   },
 };

@@ -44,7 +44,11 @@ export function figuresTable(r: PartResult, p: Painter, resolutionHz: number | n
     verdict(c, p),
   ]);
   const widths = head.map((h, i) => Math.max(h.length, ...rows.map((row) => row[i].replace(/\x1b\[[0-9;]*m/g, '').length)));
-  const line = (cells: string[]) => cells.map((c, i) => pad(c, widths[i])).join('  ').trimEnd();
+  const line = (cells: string[]) =>
+    cells
+      .map((c, i) => pad(c, widths[i]))
+      .join('  ')
+      .trimEnd();
   const total = r.pass ? p.green('PASS') : p.red('FAIL');
   return [`${p.bold(printable(r.part))} revision ${printable(r.revision) || '—'}: ${total}`, '', p.bold(line(head)), ...rows.map(line)].join('\n') + '\n';
 }

@@ -73,15 +73,21 @@ export const mergeCommand: Command = {
     }
     const n = records[0].r.shard.n;
     for (const { dir, r } of records) {
-      if (r.shard.n !== n) return fail(`${rel(dir)} is slice ${r.shard.k}/${r.shard.n}, but ${rel(records[0].dir)} is one of ${n}: merge the slices of one split`);
-      if (r.tool !== toolBuildId()) return fail(`${rel(dir)} was built by another build of scatterbook (${r.version}); build every slice and merge with the same one`);
+      if (r.shard.n !== n)
+        return fail(`${rel(dir)} is slice ${r.shard.k}/${r.shard.n}, but ${rel(records[0].dir)} is one of ${n}: merge the slices of one split`);
+      if (r.tool !== toolBuildId())
+        return fail(`${rel(dir)} was built by another build of scatterbook (${r.version}); build every slice and merge with the same one`);
     }
     const ks = records.map((x) => x.r.shard.k).sort((a, b) => a - b);
     const missing = Array.from({ length: n }, (_, i) => i + 1).filter((k) => !ks.includes(k));
     const twice = ks.filter((k, i) => ks[i - 1] === k);
-    if (missing.length || twice.length) return fail(`the slices of ${n} are ${ks.join(', ')}: ${missing.length ? `slice${missing.length > 1 ? 's' : ''} ${missing.join(', ')} missing` : ''}${missing.length && twice.length ? '; ' : ''}${twice.length ? `slice${twice.length > 1 ? 's' : ''} ${[...new Set(twice)].join(', ')} given twice` : ''}`);
+    if (missing.length || twice.length)
+      return fail(
+        `the slices of ${n} are ${ks.join(', ')}: ${missing.length ? `slice${missing.length > 1 ? 's' : ''} ${missing.join(', ')} missing` : ''}${missing.length && twice.length ? '; ' : ''}${twice.length ? `slice${twice.length > 1 ? 's' : ''} ${[...new Set(twice)].join(', ')} given twice` : ''}`,
+      );
     const content = resolve(t.cwd, (args.flags.get('content') as string | undefined) ?? records[0].r.content);
-    if (!existsSync(content)) return fail(`the content folder ${rel(content)} is not here; give it with --content DIR (its site.yaml, assets and templates make the index)`);
+    if (!existsSync(content))
+      return fail(`the content folder ${rel(content)} is not here; give it with --content DIR (its site.yaml, assets and templates make the index)`);
     const out = resolve(t.cwd, (args.flags.get('out') as string | undefined) ?? '_site');
     const shown = rel(out);
     const refusal = outputRefusal(out, { content, cwd: t.cwd, home: t.env.HOME }, shown);
@@ -104,10 +110,12 @@ export const mergeCommand: Command = {
       const from = new Map<string, { src: string; dir: string }>();
       for (const { dir } of records) {
         for (const f of files(dir)) {
-          const src = join(dir, f), dst = join(staging.dir, f);
+          const src = join(dir, f),
+            dst = join(staging.dir, f);
           const seen = from.get(f);
           if (seen !== undefined) {
-            if (!readFileSync(seen.src).equals(readFileSync(src))) throw new MergeConflict(`${f} differs between ${rel(seen.dir)} and ${rel(dir)}: were the slices built from one content folder?`);
+            if (!readFileSync(seen.src).equals(readFileSync(src)))
+              throw new MergeConflict(`${f} differs between ${rel(seen.dir)} and ${rel(dir)}: were the slices built from one content folder?`);
             continue;
           }
           mkdirSync(dirname(dst), { recursive: true });
@@ -126,7 +134,9 @@ export const mergeCommand: Command = {
       if (fault === null) throw e;
       return fail(`${fault}; nothing was written (${shown} is unchanged)`);
     }
-    t.stdout.write(`joined ${n} slice${n === 1 ? '' : 's'}: ${parts.length} part${parts.length === 1 ? '' : 's'}${comparisons.length ? ` and ${comparisons.length} comparison${comparisons.length === 1 ? '' : 's'}` : ''} into ${shown}/\n`);
+    t.stdout.write(
+      `joined ${n} slice${n === 1 ? '' : 's'}: ${parts.length} part${parts.length === 1 ? '' : 's'}${comparisons.length ? ` and ${comparisons.length} comparison${comparisons.length === 1 ? '' : 's'}` : ''} into ${shown}/\n`,
+    );
     return failures.length ? EXIT.badInput : EXIT.ok;
   },
 };

@@ -55,7 +55,8 @@ function isJsonNumber(src: Uint8Array, a: number, n: number): boolean {
  */
 function sJsonFromText(data: TouchstoneData, text: { source: Uint8Array; tokens: Float64Array }): string {
   const net = data.network;
-  const n = net.ports, k = net.freqHz.length;
+  const n = net.ports,
+    k = net.freqHz.length;
   const { source, tokens } = text;
   const s = net.s;
   // first pass: each value's text — its bytes as written (their length), or a formatted number — and the total size
@@ -64,8 +65,10 @@ function sJsonFromText(data: TouchstoneData, text: { source: Uint8Array; tokens:
   const formatted = new Map<number, string>();
   let size = 0;
   for (let p = 0; p < count; p++) {
-    const t = tokens[p], v = s[p];
-    const a = Math.floor(t / 64), len = t % 64;
+    const t = tokens[p],
+      v = s[p];
+    const a = Math.floor(t / 64),
+      len = t % 64;
     if (len > 0 && !(v === 0 && source[a] === 45) && isJsonNumber(source, a, len)) lengths[p] = len;
     else {
       const f = Number.isFinite(v) ? String(v) : 'null';
@@ -92,7 +95,8 @@ function sJsonFromText(data: TouchstoneData, text: { source: Uint8Array; tokens:
           if (part) out[w++] = 44;
           const f = formatted.size ? formatted.get(p) : undefined;
           if (f === undefined) {
-            const a = Math.floor(tokens[p] / 64), len = lengths[p];
+            const a = Math.floor(tokens[p] / 64),
+              len = lengths[p];
             for (let c = 0; c < len; c++) out[w + c] = source[a + c];
             w += len;
           } else for (let c = 0; c < f.length; c++) out[w++] = f.charCodeAt(c);
@@ -113,7 +117,9 @@ export function readJson(data: TouchstoneData, text?: { source: Uint8Array; toke
   const k = net.freqHz.length;
   const parts: string[] = [];
   // mixedModeOrder names the rows' modes, in the order of the matrix and of referenceOhms (null: single-ended ports 1…n)
-  parts.push(`{"ports":${n},"version":${JSON.stringify(data.info.version)},"parameter":${JSON.stringify(data.info.parameter)},"mixedModeOrder":${JSON.stringify(data.info.mixedModeOrder)},`);
+  parts.push(
+    `{"ports":${n},"version":${JSON.stringify(data.info.version)},"parameter":${JSON.stringify(data.info.parameter)},"mixedModeOrder":${JSON.stringify(data.info.mixedModeOrder)},`,
+  );
   parts.push(`"frequencyHz":[${Array.from(net.freqHz, jsonNumber).join(',')}],`);
   parts.push(`"referenceOhms":[${Array.from(net.z0, jsonNumber).join(',')}],"s":[`);
   const asWritten = text && data.info.parameter === 'S' && data.info.format === 'RI' && text.tokens.length === net.s.length;
@@ -152,14 +158,20 @@ export function readSummary(name: string, data: TouchstoneData, t: Terminal): st
   const lines: string[] = [];
   const row = (label: string, text: string) => lines.push(`${label.padEnd(13)}${text}`);
   lines.push(p.bold(printable(name)));
-  row('format', `Touchstone ${info.version}, ${info.parameter}-parameters as ${info.format}, frequencies in ${info.frequencyUnit}${info.parameter !== 'S' ? ' (converted to S)' : ''}`);
+  row(
+    'format',
+    `Touchstone ${info.version}, ${info.parameter}-parameters as ${info.format}, frequencies in ${info.frequencyUnit}${info.parameter !== 'S' ? ' (converted to S)' : ''}`,
+  );
   row('ports', String(net.ports) + (info.mixedModeOrder ? `, in mixed-mode order: the rows are the modes ${info.mixedModeOrder.join(' ')}` : ''));
   row('points', `${k}, ${formatFrequency(net.freqHz[0])} to ${formatFrequency(net.freqHz[k - 1])}`);
   const uniform = net.z0.every((r) => r === net.z0[0]);
   // a file in mixed-mode order holds a mode per row (D1,2 differential, C1,2 common, S3 single-ended), each with its own reference
   const modes = info.mixedModeOrder;
   const rowName = (i: number) => (modes ? `mode ${modes[i]}` : `port ${i + 1}`);
-  row('reference', uniform ? `${trimNumber(net.z0[0])} Ω on every ${modes ? 'mode' : 'port'}` : Array.from(net.z0, (r, i) => `${rowName(i)}: ${trimNumber(r)} Ω`).join(', '));
+  row(
+    'reference',
+    uniform ? `${trimNumber(net.z0[0])} Ω on every ${modes ? 'mode' : 'port'}` : Array.from(net.z0, (r, i) => `${rowName(i)}: ${trimNumber(r)} Ω`).join(', '),
+  );
   if (data.noise) {
     const f = data.noise.freqHz;
     row('noise', `${f.length} points, ${formatFrequency(f[0])} to ${formatFrequency(f[f.length - 1])}`);
@@ -168,12 +180,17 @@ export function readSummary(name: string, data: TouchstoneData, t: Terminal): st
   row(
     'passivity',
     `largest singular value ${trimNumber(pas.max, 5)} at ${formatFrequency(pas.atHz)}: ` +
-      (pas.passive ? p.green('passive') + ' (≤ 1 + 1e-3)' : p.yellow('not passive') + ' (expected of an active part such as an amplifier; a fault in the data of a passive one)'),
+      (pas.passive
+        ? p.green('passive') + ' (≤ 1 + 1e-3)'
+        : p.yellow('not passive') + ' (expected of an active part such as an amplifier; a fault in the data of a passive one)'),
   );
   if (net.ports > 1) {
     const rec = reciprocity(net);
     const where = rec.pair ? ` (S${rec.pair[0]}${rec.pair[1]} vs S${rec.pair[1]}${rec.pair[0]} at ${formatFrequency(rec.atHz)})` : '';
-    row('reciprocity', `largest |Sij − Sji| ${trimNumber(rec.maxDeviation, 3)}${where}: ${rec.reciprocal ? p.green('reciprocal') + ' (≤ 1e-3)' : p.yellow('not reciprocal') + ' (> 1e-3)'}`);
+    row(
+      'reciprocity',
+      `largest |Sij − Sji| ${trimNumber(rec.maxDeviation, 3)}${where}: ${rec.reciprocal ? p.green('reciprocal') + ' (≤ 1e-3)' : p.yellow('not reciprocal') + ' (> 1e-3)'}`,
+    );
   } else {
     row('reciprocity', 'does not apply to a 1-port');
   }

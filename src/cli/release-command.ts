@@ -17,7 +17,7 @@ import { printable } from '../format/escape.js';
 import { writeFileAtomic } from '../io/atomic.js';
 import { sha256File } from '../io/hash.js';
 import { evaluatePartFile } from '../pipeline/part.js';
-import { fingerprintOf } from '../pipeline/catalog.js';
+import { fingerprintOf } from '../pipeline/inputs.js';
 import { pdfFileName, reportPdfFileName } from '../pdf/jobs.js';
 import { formatSpecError } from '../part-file/diagnostics.js';
 import { packageVersion, runBuild } from './build-command.js';
@@ -41,8 +41,10 @@ export const releaseCommand: Command = {
       t.stderr.write(`${p.red('error:')} ${printable(message)}\n`);
       return EXIT.badInput;
     };
-    const partDir = dirname(partFile), slug = basename(partDir);
-    if (basename(partFile) !== 'part.yaml' || basename(dirname(partDir)) !== 'parts') return fail(`${shown}: a release is of a catalog part, content/parts/<slug>/part.yaml`);
+    const partDir = dirname(partFile),
+      slug = basename(partDir);
+    if (basename(partFile) !== 'part.yaml' || basename(dirname(partDir)) !== 'parts')
+      return fail(`${shown}: a release is of a catalog part, content/parts/<slug>/part.yaml`);
     const contentRoot = dirname(dirname(partDir));
     const outcome = await evaluatePartFile(partFile, contentRoot, shown);
     if (!outcome.part || !outcome.result) {
@@ -57,13 +59,31 @@ export const releaseCommand: Command = {
       return EXIT.badInput;
     }
     const recordPath = join(partDir, recordName(part.revision));
-    if (records.some((r) => r.revision === part.revision) || existsSync(recordPath)) return fail(`${part.part} revision ${part.revision} is already released (${relative(t.cwd, recordPath)}); a released revision never changes: raise revision: for a new release`);
+    if (records.some((r) => r.revision === part.revision) || existsSync(recordPath))
+      return fail(
+        `${part.part} revision ${part.revision} is already released (${relative(t.cwd, recordPath)}); a released revision never changes: raise revision: for a new release`,
+      );
 
     // the documents, built exactly as a build makes them (PDFs required)
     const tmp = mkdtempSync(join(tmpdir(), 'scatterbook-release-'));
     try {
-      const quiet: Terminal = { stdout: { write: () => true, isTTY: false } as never, stderr: { write: () => true, isTTY: false } as never, env: t.env, cwd: t.cwd };
-      await runBuild({ content: contentRoot, out: join(tmp, 'site'), keepGoing: true, cacheDir: null, pdf: 'required', browser: args.flags.get('browser') as string | undefined }, quiet);
+      const quiet: Terminal = {
+        stdout: { write: () => true, isTTY: false } as never,
+        stderr: { write: () => true, isTTY: false } as never,
+        env: t.env,
+        cwd: t.cwd,
+      };
+      await runBuild(
+        {
+          content: contentRoot,
+          out: join(tmp, 'site'),
+          keepGoing: true,
+          cacheDir: null,
+          pdf: 'required',
+          browser: args.flags.get('browser') as string | undefined,
+        },
+        quiet,
+      );
       const built = join(tmp, 'site', 'parts', slug);
       const docs: Array<[string, string]> = [
         [pdfFileName(part.part, slug), pdfFileName(part.part, slug)],
@@ -72,7 +92,10 @@ export const releaseCommand: Command = {
         ['report.html', 'report.html'],
       ].filter(([from]) => from !== 'report.html' || existsSync(join(built, from))) as Array<[string, string]>;
       const missing = docs.filter(([from]) => !existsSync(join(built, from)));
-      if (missing.length) return fail(`the documents of ${part.part} could not be printed (${missing.map(([f]) => f).join(', ')} missing): a release needs its PDFs, so it needs a Chromium-family browser (--browser PATH or SCATTERBOOK_BROWSER)`);
+      if (missing.length)
+        return fail(
+          `the documents of ${part.part} could not be printed (${missing.map(([f]) => f).join(', ')} missing): a release needs its PDFs, so it needs a Chromium-family browser (--browser PATH or SCATTERBOOK_BROWSER)`,
+        );
       const folder = releasedFolder(part.revision);
       const target = join(partDir, folder);
       const staging = join(dirname(target), `.${basename(target)}.staging-${process.pid}`);
@@ -100,7 +123,9 @@ export const releaseCommand: Command = {
           figures: recordedFigures(outcome.result.results),
         }),
       );
-      t.stdout.write(`released ${printable(part.part)} revision ${printable(part.revision)}: ${relative(t.cwd, recordPath)} and ${relative(t.cwd, target)}/ (${docs.length} documents); commit them with the part\n`);
+      t.stdout.write(
+        `released ${printable(part.part)} revision ${printable(part.revision)}: ${relative(t.cwd, recordPath)} and ${relative(t.cwd, target)}/ (${docs.length} documents); commit them with the part\n`,
+      );
       return EXIT.ok;
     } finally {
       rmSync(tmp, { recursive: true, force: true });

@@ -35,7 +35,8 @@ export const serveCommand: Command = {
     const o = { ...buildOptionsOf(args, t), keepGoing: true, pdf: 'off' as const };
     const first = await runBuild(o, t);
     if (first.parts === 0 && first.code !== 0) return EXIT.badInput;
-    if (!LOOPBACK.has(host)) t.stderr.write(`${p.yellow('warning:')} --host ${host}: the preview is reachable from other machines on that network, without any access control\n`);
+    if (!LOOPBACK.has(host))
+      t.stderr.write(`${p.yellow('warning:')} --host ${host}: the preview is reachable from other machines on that network, without any access control\n`);
     const preview = previewServer(o.out);
     try {
       await new Promise<void>((ok, fail) => {
@@ -43,11 +44,15 @@ export const serveCommand: Command = {
         preview.server.listen(port, host, () => ok());
       });
     } catch (e) {
-      t.stderr.write(`${p.red('error:')} cannot listen on ${host}:${port}: ${(e as NodeJS.ErrnoException).code === 'EADDRINUSE' ? 'the port is in use (--port N picks another)' : (e as Error).message}\n`);
+      t.stderr.write(
+        `${p.red('error:')} cannot listen on ${host}:${port}: ${(e as NodeJS.ErrnoException).code === 'EADDRINUSE' ? 'the port is in use (--port N picks another)' : (e as Error).message}\n`,
+      );
       return EXIT.badInput;
     }
     const shownHost = host.includes(':') ? `[${host}]` : host;
-    t.stdout.write(`serving ${relative(t.cwd, o.out) || '.'}/ at http://${shownHost}:${port}/ — watching ${relative(t.cwd, o.content) || '.'}/ (Ctrl-C stops)\n`);
+    t.stdout.write(
+      `serving ${relative(t.cwd, o.out) || '.'}/ at http://${shownHost}:${port}/ — watching ${relative(t.cwd, o.content) || '.'}/ (Ctrl-C stops)\n`,
+    );
 
     // rebuild on change, one build at a time, changes during a build starting one more
     let timer: NodeJS.Timeout | undefined;

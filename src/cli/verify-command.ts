@@ -16,7 +16,8 @@ export const verifyCommand: Command = {
   flags: [],
   async run(argv, t) {
     const args = parseArgs(argv, []);
-    if (args.positionals.length < 1 || args.positionals.length > 2) throw new UsageError('verify takes a built site folder and, optionally, its content folder');
+    if (args.positionals.length < 1 || args.positionals.length > 2)
+      throw new UsageError('verify takes a built site folder and, optionally, its content folder');
     const [site, content] = args.positionals;
     const r = await verifySite(resolve(t.cwd, site), content ? resolve(t.cwd, content) : null);
     const p = painter(t.stderr, t.env);
@@ -26,7 +27,11 @@ export const verifyCommand: Command = {
     }
     for (const d of r.differences) t.stderr.write(`${p.red('differs:')} ${printable(d)}\n`);
     const what = `${r.outputs} output file${r.outputs === 1 ? '' : 's'}${content ? `, ${r.inputs} input file${r.inputs === 1 ? '' : 's'} and ${r.figures} figure${r.figures === 1 ? '' : 's'}` : ''}`;
-    t.stdout.write(r.differences.length ? `checked ${what}: ${r.differences.length} difference${r.differences.length === 1 ? '' : 's'}\n` : `checked ${what}: all as the manifest says\n`);
+    t.stdout.write(
+      r.differences.length
+        ? `checked ${what}: ${r.differences.length} difference${r.differences.length === 1 ? '' : 's'}\n`
+        : `checked ${what}: all as the manifest says\n`,
+    );
     return r.differences.length ? EXIT.badInput : EXIT.ok;
   },
 };

@@ -73,9 +73,11 @@ function gapOf(u: UnitData, check: NormalizedCheck): Gap | null {
   const band = check.band;
   const f = gridOf(check, u);
   if (!f) return { band: band.name, fromHz: band.fromHz, toHz: band.toHz, coveredFromHz: null, coveredToHz: null, unit: u.unit };
-  const lo = f[0], hi = f[f.length - 1];
+  const lo = f[0],
+    hi = f[f.length - 1];
   if (band.fromHz >= lo && band.toHz <= hi) return null;
-  const from = Math.max(lo, band.fromHz), to = Math.min(hi, band.toHz);
+  const from = Math.max(lo, band.fromHz),
+    to = Math.min(hi, band.toHz);
   const any = from <= to;
   return { band: band.name, fromHz: band.fromHz, toHz: band.toHz, coveredFromHz: any ? from : null, coveredToHz: any ? to : null, unit: u.unit };
 }
@@ -93,7 +95,8 @@ export function rankingScale(unit: string): number {
 /** b ranks before a when its least margin is larger (then its next-least, …). */
 function byMargins(a: readonly number[], b: readonly number[]): number {
   for (let i = 0; i < Math.max(a.length, b.length); i++) {
-    const x = a[i] ?? Infinity, y = b[i] ?? Infinity;
+    const x = a[i] ?? Infinity,
+      y = b[i] ?? Infinity;
     if (x !== y) return y - x > 0 ? 1 : -1;
   }
   return 0;
@@ -101,7 +104,8 @@ function byMargins(a: readonly number[], b: readonly number[]): number {
 
 /** A unit as the comparison sees it: through the port map (noise parameters kept only where ports 1 and 2 stay put), at the reference. */
 export function prepareUnit(u: UnitData, portMap: readonly number[] | null | undefined, referenceOhms: number): UnitData {
-  let network = u.network, noise = u.noise ?? null;
+  let network = u.network,
+    noise = u.noise ?? null;
   if (portMap) {
     network = selectPorts(network, portMap);
     if (portMap[0] !== 1 || portMap[1] !== 2) noise = null; // noise parameters belong to the file's port 1 → 2 path
@@ -124,13 +128,32 @@ export function compareCandidates(requirement: NormalizedPart, candidates: reado
     const byCheck: Array<CheckResult | null> = requirement.checks.map(() => null);
     if (result) coveredIndex.forEach((ci, k) => (byCheck[ci] = result.results[k]));
     const tightest = byCheck
-      .flatMap((r, i) => (r && r.kind === 'limit' && r.margin !== null ? [{ margin: r.margin, key: r.margin * rankingScale(r.unit), check: i, label: r.label, on: r.on, band: r.band, unit: r.unit }] : []))
+      .flatMap((r, i) =>
+        r && r.kind === 'limit' && r.margin !== null
+          ? [{ margin: r.margin, key: r.margin * rankingScale(r.unit), check: i, label: r.label, on: r.on, band: r.band, unit: r.unit }]
+          : [],
+      )
       .sort((a, b) => a.key - b.key || a.check - b.check);
     const coverage = gaps.length ? 'partial' : 'full';
     const errors = evaluated.errors.map((e) => ({ ...e, ...(c.at && e.line === 0 ? c.at : {}) }));
-    return { label: c.label, coverage, gaps, result, byCheck, errors, warnings: result?.warnings ?? [], pass: coverage === 'full' && result !== null && result.pass, margins: tightest.map((t) => t.key), tightest, units };
+    return {
+      label: c.label,
+      coverage,
+      gaps,
+      result,
+      byCheck,
+      errors,
+      warnings: result?.warnings ?? [],
+      pass: coverage === 'full' && result !== null && result.pass,
+      margins: tightest.map((t) => t.key),
+      tightest,
+      units,
+    };
   });
-  const ranked = out.map((c, i) => ({ c, i })).filter((x) => x.c.coverage === 'full' && x.c.result).sort((a, b) => byMargins(a.c.margins, b.c.margins) || a.i - b.i);
+  const ranked = out
+    .map((c, i) => ({ c, i }))
+    .filter((x) => x.c.coverage === 'full' && x.c.result)
+    .sort((a, b) => byMargins(a.c.margins, b.c.margins) || a.i - b.i);
   const rankOf = new Map(ranked.map((x, k) => [x.i, k + 1]));
   return out.map((c, i) => ({ ...c, rank: rankOf.get(i) ?? null }));
 }
@@ -146,17 +169,22 @@ export function candidateErrors(results: readonly CandidateResult[]): SpecError[
       else merged.set(key, { error: e, labels: [c.label] });
     }
   }
-  return [...merged.values()].map(({ error, labels }) => ({ ...error, message: `${labels.length === 1 ? 'candidate' : 'candidates'} ${labels.map((l) => `"${l}"`).join(', ')}: ${error.message}` }));
+  return [...merged.values()].map(({ error, labels }) => ({
+    ...error,
+    message: `${labels.length === 1 ? 'candidate' : 'candidates'} ${labels.map((l) => `"${l}"`).join(', ')}: ${error.message}`,
+  }));
 }
 
 /** The bands of the requirement for which no candidate has any data at all: nothing can be said there. */
 export function bandsNoneCover(requirement: NormalizedPart, results: readonly CandidateResult[]): NormalizedCheck['band'][] {
   const out = new Map<string, NormalizedCheck['band']>();
   for (const check of requirement.checks) {
-    const nobody = results.every((c) => c.units.every((u) => {
-      const g = gapOf(u, check);
-      return g !== null && g.coveredFromHz === null;
-    }));
+    const nobody = results.every((c) =>
+      c.units.every((u) => {
+        const g = gapOf(u, check);
+        return g !== null && g.coveredFromHz === null;
+      }),
+    );
     if (nobody) out.set(check.band.name, check.band);
   }
   return [...out.values()];

@@ -20,7 +20,9 @@ export const bandGaps = (c: CandidateResult) => [...new Map(c.gaps.map((g) => [g
 
 /** Where a candidate's data leave a band uncovered, in words: "data cover 2.4 GHz to 2.47 GHz of ism (…) only". */
 export function gapText(g: CandidateResult['gaps'][number]): string {
-  return g.coveredFromHz === null ? `no data at all in ${g.band} (${bandRange(g.fromHz, g.toHz)})` : `data cover ${bandRange(g.coveredFromHz, g.coveredToHz as number)} of ${g.band} (${bandRange(g.fromHz, g.toHz)}) only`;
+  return g.coveredFromHz === null
+    ? `no data at all in ${g.band} (${bandRange(g.fromHz, g.toHz)})`
+    : `data cover ${bandRange(g.coveredFromHz, g.coveredToHz as number)} of ${g.band} (${bandRange(g.fromHz, g.toHz)}) only`;
 }
 
 /** The largest margin of a requirement row over the candidates with a result there, or null when fewer than two have one (then nothing is "best"). */
@@ -42,13 +44,17 @@ export function rankReasons(results: readonly CandidateResult[]): string[] {
     const first = c.tightest[0];
     if (!first) return `${c.label}: ranked ${c.rank}; the requirement has no limit with a margin`;
     if (c.rank === 1) {
-      const lead = ranked.length > 1 ? `ranked first: its least margin, ${formatValue(first.margin, first.unit)} on ${limitName(first)}, is the largest of the candidates` : 'the only candidate ranked';
+      const lead =
+        ranked.length > 1
+          ? `ranked first: its least margin, ${formatValue(first.margin, first.unit)} on ${limitName(first)}, is the largest of the candidates`
+          : 'the only candidate ranked';
       return `${c.label}: ${lead}${failText}`;
     }
     const above = ranked[c.rank - 2];
     let i = 0;
     while (i < c.tightest.length && above.tightest[i] && above.tightest[i].key === c.tightest[i].key) i++;
-    const mine = c.tightest[i], theirs = above.tightest[i];
+    const mine = c.tightest[i],
+      theirs = above.tightest[i];
     if (!mine || !theirs) return `${c.label}: the same margins as ${above.label}; listed after it as in the comparison file${failText}`;
     const which = i === 0 ? 'tightest limit' : `${ordinal(i + 1)} tightest limit (the tighter ones tie)`;
     if (mine.check === theirs.check) {
@@ -122,15 +128,19 @@ export function baselineDifferences(requirement: NormalizedPart, results: readon
     .map((c) => ({
       label: c.label,
       limits: requirement.checks.map((_, i) => {
-        const a = c.byCheck[i], b = base.byCheck[i];
+        const a = c.byCheck[i],
+          b = base.byCheck[i];
         return { check: i, worst: a && b ? a.worst - b.worst : null };
       }),
       traces: traceChecks.flatMap((t, k) => {
-        const mine = candidateTrace(requirement, c, t.check, t.item), theirs = baseTraces[k];
+        const mine = candidateTrace(requirement, c, t.check, t.item),
+          theirs = baseTraces[k];
         if (!mine || !theirs) return [];
         const ch = requirement.checks[t.check];
         const trace = differenceTrace(mine, theirs, ch.band.fromHz, ch.band.toHz);
-        return trace.freqHz.length ? [{ check: t.check, figure: ch.figure.id, item: ch.items[t.item].label, band: ch.band.name, unit: ch.figure.unit, trace }] : [];
+        return trace.freqHz.length
+          ? [{ check: t.check, figure: ch.figure.id, item: ch.items[t.item].label, band: ch.band.name, unit: ch.figure.unit, trace }]
+          : [];
       }),
     }));
 }

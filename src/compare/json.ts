@@ -6,6 +6,12 @@ export function comparisonJson(title: string, referenceOhms: number, results: re
   return {
     title,
     reference: referenceOhms,
-    candidates: results.map((c) => ({ label: c.label, rank: c.rank, pass: c.pass, coverage: c.coverage, results: c.result ? (figuresJson(c.result) as { results: unknown[] }).results : [] })),
+    candidates: results.map((c) => ({
+      label: c.label,
+      rank: c.rank,
+      pass: c.pass,
+      coverage: c.coverage,
+      results: c.result ? (figuresJson(c.result) as { results: unknown[] }).results : [],
+    })),
   };
 }

@@ -16,7 +16,8 @@ import type { Trace } from './trace.js';
 export function medianTrace(traces: readonly Trace[]): Trace {
   if (!traces.length) return { freqHz: new Float64Array(0), values: new Float64Array(0) };
   const grid = traces[0].freqHz;
-  const f: number[] = [], v: number[] = [];
+  const f: number[] = [],
+    v: number[] = [];
   const column = new Float64Array(traces.length);
   for (let k = 0; k < grid.length; k++) {
     const x = grid[k];
@@ -38,10 +39,12 @@ export function medianTrace(traces: readonly Trace[]): Trace {
 /** Every point of a and b inside [from, to] ∩ both grids, with that interval's ends, ascending and once each; empty when they do not overlap. */
 export function commonGrid(a: Float64Array, b: Float64Array, fromHz: number, toHz: number): Float64Array {
   if (!a.length || !b.length) return new Float64Array(0);
-  const lo = Math.max(a[0], b[0], fromHz), hi = Math.min(a[a.length - 1], b[b.length - 1], toHz);
+  const lo = Math.max(a[0], b[0], fromHz),
+    hi = Math.min(a[a.length - 1], b[b.length - 1], toHz);
   if (!(lo <= hi)) return new Float64Array(0);
   const out: number[] = [lo];
-  let i = 0, j = 0;
+  let i = 0,
+    j = 0;
   while (i < a.length && a[i] <= lo) i++;
   while (j < b.length && b[j] <= lo) j++;
   // merge the two ascending grids strictly between lo and hi
@@ -60,6 +63,7 @@ export function commonGrid(a: Float64Array, b: Float64Array, fromHz: number, toH
 export function differenceTrace(candidate: Trace, baseline: Trace, fromHz: number, toHz: number): Trace {
   const grid = commonGrid(candidate.freqHz, baseline.freqHz, fromHz, toHz);
   const values = new Float64Array(grid.length);
-  for (let k = 0; k < grid.length; k++) values[k] = interpolateAt(candidate.freqHz, candidate.values, grid[k]) - interpolateAt(baseline.freqHz, baseline.values, grid[k]);
+  for (let k = 0; k < grid.length; k++)
+    values[k] = interpolateAt(candidate.freqHz, candidate.values, grid[k]) - interpolateAt(baseline.freqHz, baseline.values, grid[k]);
   return { freqHz: grid, values };
 }

@@ -130,7 +130,12 @@ export function evaluatePart(part: NormalizedPart, units: readonly UnitData[]): 
   if (units.length > 0) {
     const n0 = units[0].network.ports;
     for (const u of units.slice(1)) {
-      if (u.network.ports !== n0) fail('port-count-mismatch', u.fileAt, `unit ${u.unit} (${u.file}) has ${u.network.ports} ports but unit ${units[0].unit} (${units[0].file}) has ${n0}; every unit of a part must have the same ports`);
+      if (u.network.ports !== n0)
+        fail(
+          'port-count-mismatch',
+          u.fileAt,
+          `unit ${u.unit} (${u.file}) has ${u.network.ports} ports but unit ${units[0].unit} (${units[0].file}) has ${n0}; every unit of a part must have the same ports`,
+        );
     }
   }
   const ports = units.length ? units[0].network.ports : 0;
@@ -144,7 +149,11 @@ export function evaluatePart(part: NormalizedPart, units: readonly UnitData[]): 
       for (const u of units) {
         for (const [p, q] of pairs) {
           if (u.network.z0[p - 1] !== u.network.z0[q - 1]) {
-            fail('bad-value', part.mixedModeAt, `mixed-mode pair [${p}, ${q}]: ${u.file} (unit ${u.unit}) has references of ${u.network.z0[p - 1]} Ω and ${u.network.z0[q - 1]} Ω on these ports; the two ports of a pair need one reference (renormalize the file first)`);
+            fail(
+              'bad-value',
+              part.mixedModeAt,
+              `mixed-mode pair [${p}, ${q}]: ${u.file} (unit ${u.unit}) has references of ${u.network.z0[p - 1]} Ω and ${u.network.z0[q - 1]} Ω on these ports; the two ports of a pair need one reference (renormalize the file first)`,
+            );
           }
         }
       }
@@ -166,7 +175,8 @@ export function evaluatePart(part: NormalizedPart, units: readonly UnitData[]): 
             fail('bad-parameter', c.onAt, `${name} names a single-ended entry, but ${describe}: name its entries by mode, e.g. Sdd21, Scd21, Scc11`);
             continue;
           }
-          const to = orderIndex(order, own, p.mode[0] as 'd' | 'c', p.to), from = orderIndex(order, own, p.mode[1] as 'd' | 'c', p.from);
+          const to = orderIndex(order, own, p.mode[0] as 'd' | 'c', p.to),
+            from = orderIndex(order, own, p.mode[1] as 'd' | 'c', p.from);
           if (to === null || from === null) fail('port-range', c.onAt, `${name} has no entry in ${inOrder.file}: its [Mixed-Mode Order] is ${order.join(' ')}`);
         }
       }
@@ -180,7 +190,11 @@ export function evaluatePart(part: NormalizedPart, units: readonly UnitData[]): 
   for (const c of inOrder ? [] : part.checks) {
     // (files in mixed-mode order carry their own pairing; single-ended files need the part's)
     if (!pairs && c.items.some((i) => i.params.some((p) => p.mode))) {
-      fail('bad-parameter', c.onAt, `mixed-mode parameters need the part's port pairs: add mixed-mode: {pairs: [[1, 2], [3, 4]]} (or measure in Touchstone 2's mixed-mode order)`);
+      fail(
+        'bad-parameter',
+        c.onAt,
+        `mixed-mode parameters need the part's port pairs: add mixed-mode: {pairs: [[1, 2], [3, 4]]} (or measure in Touchstone 2's mixed-mode order)`,
+      );
       continue;
     }
     for (const item of c.items) {
@@ -192,7 +206,11 @@ export function evaluatePart(part: NormalizedPart, units: readonly UnitData[]): 
         }
         if (p.mode) continue;
         if (top > ports) {
-          fail('port-range', c.onAt, `${parameterName(p)} needs port ${top}, but the measured files have ${ports} port${ports === 1 ? '' : 's'}${c.figure.operands === 'port-pair' ? ' (set ports: [a, b] for the stability figures)' : ''}`);
+          fail(
+            'port-range',
+            c.onAt,
+            `${parameterName(p)} needs port ${top}, but the measured files have ${ports} port${ports === 1 ? '' : 's'}${c.figure.operands === 'port-pair' ? ' (set ports: [a, b] for the stability figures)' : ''}`,
+          );
         }
       }
     }
@@ -216,7 +234,13 @@ export function evaluatePart(part: NormalizedPart, units: readonly UnitData[]): 
     }
   }
   // two limits over one band that no file covers give the same message at the band's line: say it once
-  if (errors.length) return { value: null, errors: errors.filter((e, i) => errors.findIndex((o) => o.line === e.line && o.column === e.column && o.file === e.file && o.message === e.message) === i) };
+  if (errors.length)
+    return {
+      value: null,
+      errors: errors.filter(
+        (e, i) => errors.findIndex((o) => o.line === e.line && o.column === e.column && o.file === e.file && o.message === e.message) === i,
+      ),
+    };
   const pass = results.every((r) => r.kind !== 'limit' || r.pass === true);
   return { value: { part: part.part, revision: part.revision, pass, results, warnings }, errors };
 }
@@ -233,10 +257,20 @@ function evaluateCheck(part: NormalizedPart, check: NormalizedCheck, all: readon
   const unitResults: UnitResult[] = [];
   const onNoise = check.figure.grid === 'noise';
   for (const u of units) {
-    const f = gridOf(check, u) ?? problem('figure-undefined', `${check.figure.id} needs noise parameters, and ${u.file} (unit ${u.unit}) has none (a Touchstone noise block follows the network data of a 2-port)`);
-    const lo = f[0], hi = f[f.length - 1];
+    const f =
+      gridOf(check, u) ??
+      problem(
+        'figure-undefined',
+        `${check.figure.id} needs noise parameters, and ${u.file} (unit ${u.unit}) has none (a Touchstone noise block follows the network data of a 2-port)`,
+      );
+    const lo = f[0],
+      hi = f[f.length - 1];
     if (band.fromHz < lo || band.toHz > hi) {
-      problem('band-outside-data', `band ${band.name} (${formatFrequency(band.fromHz)} to ${formatFrequency(band.toHz)}) reaches outside the ${onNoise ? 'noise frequencies' : 'measured range'} of ${u.file} (${formatFrequency(lo)} to ${formatFrequency(hi)})`, band.at);
+      problem(
+        'band-outside-data',
+        `band ${band.name} (${formatFrequency(band.fromHz)} to ${formatFrequency(band.toHz)}) reaches outside the ${onNoise ? 'noise frequencies' : 'measured range'} of ${u.file} (${formatFrequency(lo)} to ${formatFrequency(hi)})`,
+        band.at,
+      );
     }
     const ctx: FigureContext = {
       network: u.network,
@@ -252,7 +286,11 @@ function evaluateCheck(part: NormalizedPart, check: NormalizedCheck, all: readon
     for (const item of check.items) {
       const candidate = evaluateItem(check, ctx, item, u, score, problem, part.mixedModePairs);
       if (!lowest || candidate.lowest.value < lowest.value) lowest = { ...candidate.lowest, on: candidate.on };
-      if (!best || candidate.score < best.score || (candidate.score === best.score && candidate.atHz !== null && best.atHz !== null && candidate.atHz < best.atHz)) {
+      if (
+        !best ||
+        candidate.score < best.score ||
+        (candidate.score === best.score && candidate.atHz !== null && best.atHz !== null && candidate.atHz < best.atHz)
+      ) {
         best = candidate;
       }
     }
@@ -262,7 +300,12 @@ function evaluateCheck(part: NormalizedPart, check: NormalizedCheck, all: readon
       // excess loss: below −0.1 dB, beyond a network analyser's usual transmission uncertainty (common practice)
       const at = low.atHz === null ? '' : ` at ${formatFrequency(low.atHz)}`;
       if (check.figure.id === 'excess-loss' && low.value < -0.1) {
-        warnings.push({ code: 'negative-excess-loss', file: part.file, ...check.at, message: `excess loss of unit ${u.unit} on ${low.on} comes out negative (${trimValue(low.value)} dB${at}) on a passive part, which cannot beat the ideal split: is ways (N = ${part.ways ?? classOf(part.partClass).ways(u.network.ports)}) right for it?` });
+        warnings.push({
+          code: 'negative-excess-loss',
+          file: part.file,
+          ...check.at,
+          message: `excess loss of unit ${u.unit} on ${low.on} comes out negative (${trimValue(low.value)} dB${at}) on a passive part, which cannot beat the ideal split: is ways (N = ${part.ways ?? classOf(part.partClass).ways(u.network.ports)}) right for it?`,
+        });
       }
       if (check.figure.id === 'group-delay' || check.figure.id === 'group-delay-variation') {
         const df = low.stepHz;
@@ -286,10 +329,17 @@ function evaluateCheck(part: NormalizedPart, check: NormalizedCheck, all: readon
  * typicalOf over `typicalUnits` (the units in the order of `unitResults`),
  * pass when every unit passes.
  */
-export function resultOf(check: NormalizedCheck, unitResults: readonly UnitResult[], typicalUnits: readonly UnitData[], score: (v: number) => number, typicalAt: Readonly<Record<string, string>> | null): CheckResult {
+export function resultOf(
+  check: NormalizedCheck,
+  unitResults: readonly UnitResult[],
+  typicalUnits: readonly UnitData[],
+  score: (v: number) => number,
+  typicalAt: Readonly<Record<string, string>> | null,
+): CheckResult {
   let worst = unitResults[0];
   for (const r of unitResults.slice(1)) {
-    const a = score(r.worst), w = score(worst.worst);
+    const a = score(r.worst),
+      w = score(worst.worst);
     if (a < w || (a === w && r.atHz !== null && worst.atHz !== null && r.atHz < worst.atHz)) worst = r;
   }
   const limit = check.limit;
@@ -381,7 +431,11 @@ function evaluateItem(
   const set = bandSet(grid, values, ctx.band.fromHz, ctx.band.toHz);
   for (let k = 0; k < set.values.length; k++) {
     if (Number.isNaN(set.values[k])) {
-      const why = fig.whyUndefined ? `: ${fig.whyUndefined(ctx, item, set.freqHz[k])}` : fig.undefinedWhere ? `: it is not defined where ${fig.undefinedWhere}` : '';
+      const why = fig.whyUndefined
+        ? `: ${fig.whyUndefined(ctx, item, set.freqHz[k])}`
+        : fig.undefinedWhere
+          ? `: it is not defined where ${fig.undefinedWhere}`
+          : '';
       problem('figure-undefined', `${where} has no value at ${formatFrequency(set.freqHz[k])}${why}`);
     }
   }
@@ -417,4 +471,3 @@ function gridStep(freqHz: Float64Array, f: number): number | null {
 }
 
 const trimValue = (v: number) => String(Number(v.toPrecision(4)));
-

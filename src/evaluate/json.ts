@@ -12,7 +12,8 @@ export function jsonNumber(v: number | null): JsonNumber {
   return v > 0 ? 'Infinity' : v < 0 ? '-Infinity' : null;
 }
 
-const limitJson = (l: PartResult['results'][number]['limit']) => (l ? Object.fromEntries(Object.entries(l).map(([k, v]) => [k, jsonNumber(v as number)])) : null);
+const limitJson = (l: PartResult['results'][number]['limit']) =>
+  l ? Object.fromEntries(Object.entries(l).map(([k, v]) => [k, jsonNumber(v as number)])) : null;
 
 /** The JSON of `figures --json`: exactly the documented keys. */
 export function figuresJson(r: PartResult): object {
@@ -42,4 +43,3 @@ export function figuresJson(r: PartResult): object {
     warnings: r.warnings.map((w) => ({ code: w.code, file: w.file, line: w.line, column: w.column, message: w.message })),
   };
 }
-

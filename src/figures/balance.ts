@@ -58,7 +58,7 @@ export const BALANCE_FIGURES: readonly FigureDef[] = [
     operands: 'pair',
     shape: 'trace',
     worse: 'nominal',
-    definition: '∠A − ∠B, wrapped into nominal ± 180° (nominal 0; 90° for a hybrid, 180° for a balun, or the part\'s phase-split)',
+    definition: "∠A − ∠B, wrapped into nominal ± 180° (nominal 0; 90° for a hybrid, 180° for a balun, or the part's phase-split)",
     defaultNominal: ({ part }) => defaultPhaseSplit(part),
     perPoint: (ctx, item) => {
       const [a, b] = item.params;

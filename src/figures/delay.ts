@@ -10,7 +10,10 @@ import { FigureUndefined, type FigureContext, type FigureDef, type Item } from '
 
 const delay = (ctx: FigureContext, item: Item) => {
   const n = ctx.network.freqHz.length;
-  if (n < 2) throw new FigureUndefined(`group delay is the derivative of the phase over frequency, and a file of ${n} measured point has none; it needs at least two frequencies`);
+  if (n < 2)
+    throw new FigureUndefined(
+      `group delay is the derivative of the phase over frequency, and a file of ${n} measured point has none; it needs at least two frequencies`,
+    );
   return groupDelay(ctx.network.freqHz, entry(ctx.network, item.params[0].to, item.params[0].from), ctx.aperture);
 };
 

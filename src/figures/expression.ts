@@ -42,7 +42,21 @@ export type ExpressionCompiler = (source: string) => CompileResult;
 const ELEMENTWISE: Record<string, string> = { multiply: 'dotMultiply', divide: 'dotDivide', pow: 'dotPow' };
 const CONSTANTS = new Set(['pi', 'e', 'Infinity']);
 /** mathjs functions that are not arithmetic on numbers and have no place in a figure. */
-const NOT_ARITHMETIC = new Set(['import', 'createUnit', 'evaluate', 'parse', 'compile', 'simplify', 'derivative', 'config', 'chain', 'help', 'reviver', 'replacer', 'resolve']);
+const NOT_ARITHMETIC = new Set([
+  'import',
+  'createUnit',
+  'evaluate',
+  'parse',
+  'compile',
+  'simplify',
+  'derivative',
+  'config',
+  'chain',
+  'help',
+  'reviver',
+  'replacer',
+  'resolve',
+]);
 
 function parameterSymbol(name: string): SParameter | null {
   const m = /^S(\d)(\d)$/.exec(name) ?? /^S(\d+)_(\d+)$/.exec(name);
@@ -103,7 +117,9 @@ export function makeCompiler(math: MathJsInstance): ExpressionCompiler {
     });
     if (symbols.length) {
       const s = symbols[0];
-      const hint = parameterSymbol(s) ? `${s} is complex: wrap it in a trace function such as db(${s}) or magnitude(${s})` : `expected an S-parameter inside a trace function (${Object.keys(TRACE_FUNCTIONS).join(', ')})`;
+      const hint = parameterSymbol(s)
+        ? `${s} is complex: wrap it in a trace function such as db(${s}) or magnitude(${s})`
+        : `expected an S-parameter inside a trace function (${Object.keys(TRACE_FUNCTIONS).join(', ')})`;
       return { ok: false, message: `unknown name "${s}" in "${source}"; ${hint}` };
     }
     if (slots.length === 0) return { ok: false, message: `"${source}" reads no trace; use a trace function such as db(S21)` };
@@ -119,7 +135,7 @@ export function makeCompiler(math: MathJsInstance): ExpressionCompiler {
           });
           const n = ctx.network.freqHz.length;
           const r = code.evaluate(scope) as unknown;
-          const arr = typeof r === 'number' ? new Array(n).fill(r) : (math.isMatrix(r) ? (r.toArray() as unknown[]) : (r as unknown[]));
+          const arr = typeof r === 'number' ? new Array(n).fill(r) : math.isMatrix(r) ? (r.toArray() as unknown[]) : (r as unknown[]);
           if (!Array.isArray(arr) || arr.length !== n || arr.some((v) => typeof v !== 'number')) {
             throw new Error(`the expression "${source}" must give one real number per frequency point`);
           }

@@ -28,7 +28,7 @@ function lossFigure(id: string, title: string, worse: 'higher' | 'lower', what: 
 
 export const LOSS_FIGURES: readonly FigureDef[] = [
   lossFigure('insertion-loss', 'Insertion loss', 'higher', 'loss of a transmission X'),
-  lossFigure('mainline-loss', 'Mainline loss', 'higher', 'loss of a coupler\'s through path X'),
+  lossFigure('mainline-loss', 'Mainline loss', 'higher', "loss of a coupler's through path X"),
   lossFigure('isolation', 'Isolation', 'lower', 'loss between ports that should not couple'),
   lossFigure('rejection', 'Rejection', 'lower', 'loss of a transmission outside the passband'),
   lossFigure('coupling', 'Coupling', 'higher', 'loss from the input to the coupled port'),

@@ -20,7 +20,8 @@ export function noiseFigureAtZ0(noise: NoiseParameters, z0: number): Float64Arra
   const out = new Float64Array(noise.freqHz.length);
   for (let k = 0; k < out.length; k++) {
     const fmin = Math.pow(10, noise.nfMinDb[k] / 10);
-    const gr = noise.gammaOpt[2 * k], gi = noise.gammaOpt[2 * k + 1];
+    const gr = noise.gammaOpt[2 * k],
+      gi = noise.gammaOpt[2 * k + 1];
     const denom = (1 + gr) * (1 + gr) + gi * gi;
     out[k] = denom === 0 ? NaN : 10 * Math.log10(fmin + (4 * (noise.rnOhms[k] / z0) * (gr * gr + gi * gi)) / denom);
   }

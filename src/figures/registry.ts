@@ -9,5 +9,8 @@ import { STABILITY_FIGURES } from './stability.js';
 import type { FigureDef } from './types.js';
 
 export const FIGURES: ReadonlyMap<string, FigureDef> = new Map(
-  [...LOSS_FIGURES, ...BALANCE_FIGURES, ...DELAY_FIGURES, ...STABILITY_FIGURES, ...FLATNESS_FIGURES, ...BANDWIDTH_FIGURES, ...NOISE_FIGURES].map((f) => [f.id, f]),
+  [...LOSS_FIGURES, ...BALANCE_FIGURES, ...DELAY_FIGURES, ...STABILITY_FIGURES, ...FLATNESS_FIGURES, ...BANDWIDTH_FIGURES, ...NOISE_FIGURES].map((f) => [
+    f.id,
+    f,
+  ]),
 );

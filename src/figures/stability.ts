@@ -22,14 +22,23 @@ import { formatFrequency } from '../format/units.js';
 import type { FigureContext, FigureDef, Item } from './types.js';
 
 interface Four {
-  s11r: Float64Array; s11i: Float64Array; s21r: Float64Array; s21i: Float64Array;
-  s12r: Float64Array; s12i: Float64Array; s22r: Float64Array; s22i: Float64Array;
+  s11r: Float64Array;
+  s11i: Float64Array;
+  s21r: Float64Array;
+  s21i: Float64Array;
+  s12r: Float64Array;
+  s12i: Float64Array;
+  s22r: Float64Array;
+  s22i: Float64Array;
 }
 
 function four(ctx: FigureContext, item: Item): Four {
   const [p11, p21, p12, p22] = item.params;
   const g = (p: (typeof item.params)[number]) => entry(ctx.network, p.to, p.from);
-  const a = g(p11), b = g(p21), c = g(p12), d = g(p22);
+  const a = g(p11),
+    b = g(p21),
+    c = g(p12),
+    d = g(p22);
   return { s11r: a.re, s11i: a.im, s21r: b.re, s21i: b.im, s12r: c.re, s12i: c.im, s22r: d.re, s22i: d.im };
 }
 
@@ -59,10 +68,12 @@ function muAt(v: Four, k: number): number {
   return den === 0 ? NaN : a / den;
 }
 
-const perPoint = (at: (v: Four, k: number) => number) => (ctx: FigureContext, item: Item): Float64Array => {
-  const v = four(ctx, item);
-  return Float64Array.from({ length: v.s11r.length }, (_, k) => at(v, k));
-};
+const perPoint =
+  (at: (v: Four, k: number) => number) =>
+  (ctx: FigureContext, item: Item): Float64Array => {
+    const v = four(ctx, item);
+    return Float64Array.from({ length: v.s11r.length }, (_, k) => at(v, k));
+  };
 
 const pointOf = (ctx: FigureContext, hz: number) => Math.max(0, ctx.network.freqHz.indexOf(hz));
 

@@ -85,7 +85,10 @@ export interface FigureDef {
 
 /** A figure has no value for this data (e.g. K where S12·S21 = 0); the message says why. */
 export class FigureUndefined extends Error {
-  constructor(message: string, readonly atHz: number | null = null) {
+  constructor(
+    message: string,
+    readonly atHz: number | null = null,
+  ) {
     super(message);
   }
 }

@@ -44,7 +44,6 @@ export function formatLimit(limit: Limit | null, unit: string): string {
   return '—';
 }
 
-
 /** The display unit of a row of values of one figure: ns or ps for times (by the largest), else the figure's own. */
 export function displayUnit(values: ReadonlyArray<number | null>, unit: string): { label: string; scale: number } {
   if (unit === 's') {
@@ -72,7 +71,6 @@ export interface Cell {
   /** The exact number behind the text (null where there is none). */
   readonly value: number | null;
 }
-
 
 /** A change limit's stages as "initial → after thermal cycling" (each stage's condition values). */
 export function formatStages(change: { readonly from: Readonly<Record<string, string>>; readonly to: Readonly<Record<string, string>> }): string {

@@ -52,7 +52,8 @@ export function outputRefusal(out: string, places: OutputPlaces, shown = out): s
   const content = realPath(places.content);
   const cwd = realPath(places.cwd);
   const home = places.home ?? homedir();
-  const why = (reason: string) => `--out ${shown}: ${reason}; a build replaces its output folder whole, so it must be absent, empty, or a site scatterbook built; nothing was touched`;
+  const why = (reason: string) =>
+    `--out ${shown}: ${reason}; a build replaces its output folder whole, so it must be absent, empty, or a site scatterbook built; nothing was touched`;
   if (target === parse(target).root) return why('is the root of the file system');
   if (target === content) return why('is the content folder');
   if (within(content, target)) return why('lies inside the content folder');

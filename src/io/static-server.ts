@@ -93,7 +93,9 @@ export function previewServer(root: string): PreviewServer {
         });
       return;
     }
-    createReadStream(real).on('error', () => res.destroy()).pipe(res);
+    createReadStream(real)
+      .on('error', () => res.destroy())
+      .pipe(res);
   };
   const server = createServer((req, res) => {
     try {

@@ -8,7 +8,14 @@ import { closeSync, fstatSync, openSync, readSync, statSync, constants } from 'n
 import { decodeYamlSource, MAX_YAML_BYTES, tooLargeError, type SourceResult } from '../part-file/source.js';
 
 /** What a path that is not a regular file holds, in words, or null for a regular file. */
-export function notAFile(st: { isFile(): boolean; isDirectory(): boolean; isFIFO(): boolean; isSocket(): boolean; isCharacterDevice(): boolean; isBlockDevice(): boolean }): string | null {
+export function notAFile(st: {
+  isFile(): boolean;
+  isDirectory(): boolean;
+  isFIFO(): boolean;
+  isSocket(): boolean;
+  isCharacterDevice(): boolean;
+  isBlockDevice(): boolean;
+}): string | null {
   if (st.isFile()) return null;
   if (st.isDirectory()) return 'is a folder, not a file';
   if (st.isFIFO()) return 'is a named pipe (FIFO), not a file';
@@ -22,7 +29,11 @@ export function notAFile(st: { isFile(): boolean; isDirectory(): boolean; isFIFO
  * whole). `missing` is true when nothing is at the path.
  */
 export function readYamlFile(path: string, shown: string, what = 'the part file'): SourceResult & { readonly missing?: boolean } {
-  const fail = (message: string, missing = false) => ({ ok: false as const, missing, error: { code: 'missing-file' as const, file: shown, line: 0, column: 0, message } });
+  const fail = (message: string, missing = false) => ({
+    ok: false as const,
+    missing,
+    error: { code: 'missing-file' as const, file: shown, line: 0, column: 0, message },
+  });
   let st;
   try {
     st = statSync(path);

@@ -42,7 +42,8 @@ export function readTouchstoneFile(path: string, options: FileReadOptions = {}):
     fd = openSync(path, 'r');
   } catch (e) {
     const err = e as NodeJS.ErrnoException;
-    const what = err.code === 'ENOENT' ? 'no such file' : err.code === 'EISDIR' ? 'is a folder, not a file' : err.code === 'EACCES' ? 'permission denied' : err.message;
+    const what =
+      err.code === 'ENOENT' ? 'no such file' : err.code === 'EISDIR' ? 'is a folder, not a file' : err.code === 'EACCES' ? 'permission denied' : err.message;
     return { value: null, errors: [{ code: 'not-text', line: 0, message: `cannot read the file: ${what}` }], warnings: [], bytes: 0, sha256: '' };
   }
   try {
@@ -67,7 +68,13 @@ export function readTouchstoneFile(path: string, options: FileReadOptions = {}):
     return { ...fromParsed(parsed), bytes: total, sha256: hashing ? hash.digest('hex') : '', ...(text ? { text } : {}) };
   } catch (e) {
     const err = e as NodeJS.ErrnoException;
-    return { value: null, errors: [{ code: 'not-text', line: 0, message: `cannot read the file: ${err.code === 'EISDIR' ? 'is a folder, not a file' : err.message}` }], warnings: [], bytes: 0, sha256: '' };
+    return {
+      value: null,
+      errors: [{ code: 'not-text', line: 0, message: `cannot read the file: ${err.code === 'EISDIR' ? 'is a folder, not a file' : err.message}` }],
+      warnings: [],
+      bytes: 0,
+      sha256: '',
+    };
   } finally {
     closeSync(fd);
   }

@@ -23,7 +23,13 @@ export interface ComplianceRow {
   readonly verdict: 'PASS' | 'FAIL' | 'REPORT';
   /** A change limit's two stages, "stage: initial → stage: after shock"; '' for every other row. */
   readonly stages: string;
-  readonly units: ReadonlyArray<{ readonly unit: string; readonly worst: Cell; readonly at: Cell; readonly margin: Cell; readonly verdict: 'PASS' | 'FAIL' | 'REPORT' }>;
+  readonly units: ReadonlyArray<{
+    readonly unit: string;
+    readonly worst: Cell;
+    readonly at: Cell;
+    readonly margin: Cell;
+    readonly verdict: 'PASS' | 'FAIL' | 'REPORT';
+  }>;
 }
 
 export interface MeasurementRow {
@@ -52,7 +58,16 @@ export interface LotRow {
   readonly stages: string;
   /** Distinct units. */
   readonly units: number;
-  readonly groups: ReadonlyArray<{ readonly label: string; readonly count: number; readonly mean: string; readonly std: string; readonly min: string; readonly max: string; readonly cpk: string; readonly worst: string }>;
+  readonly groups: ReadonlyArray<{
+    readonly label: string;
+    readonly count: number;
+    readonly mean: string;
+    readonly std: string;
+    readonly min: string;
+    readonly max: string;
+    readonly cpk: string;
+    readonly worst: string;
+  }>;
   /** Per condition: the largest minus the smallest of the conditions' worsts, or ''. */
   readonly conditionSpread: string;
   readonly strip: string;
@@ -120,7 +135,12 @@ export interface PartPage {
   /** The JSON of `scatterbook figures --json`, for machine readers and tests. */
   readonly figuresJson: string;
   /** Exports: the site paths of the part's figures as JSON and CSV and of the median Touchstone file (null: why there is none). */
-  readonly exports: { readonly json: string; readonly csv: string; readonly median: { readonly url: string; readonly text: string; readonly file?: string } | null; readonly noMedian: string };
+  readonly exports: {
+    readonly json: string;
+    readonly csv: string;
+    readonly median: { readonly url: string; readonly text: string; readonly file?: string } | null;
+    readonly noMedian: string;
+  };
   /** Releases and the current revision, oldest first (archive/releases.ts). */
   readonly history: readonly HistoryRow[];
   /** The released documents the site carries unchanged: where they are in the content folder, and their site path. */
@@ -246,7 +266,15 @@ export interface ComparisonCandidate {
   readonly portMap: string;
   /** "renormalized from 75 Ω to 50 Ω", or ''. */
   readonly renormalized: string;
-  readonly units: ReadonlyArray<{ readonly unit: string; readonly file: string; readonly sha256: string; readonly points: number; readonly range: string; readonly reference: string; readonly touchstone: string }>;
+  readonly units: ReadonlyArray<{
+    readonly unit: string;
+    readonly file: string;
+    readonly sha256: string;
+    readonly points: number;
+    readonly range: string;
+    readonly reference: string;
+    readonly touchstone: string;
+  }>;
 }
 
 export interface ComparisonPage {
@@ -259,14 +287,31 @@ export interface ComparisonPage {
   readonly classTitle: string;
   readonly reference: string;
   readonly bands: ReadonlyArray<{ readonly name: string; readonly range: string }>;
-  readonly requirement: ReadonlyArray<{ readonly label: string; readonly on: string; readonly band: string; readonly bandRange: string; readonly limit: string }>;
+  readonly requirement: ReadonlyArray<{
+    readonly label: string;
+    readonly on: string;
+    readonly band: string;
+    readonly bandRange: string;
+    readonly limit: string;
+  }>;
   readonly candidates: readonly ComparisonCandidate[];
-  readonly rows: ReadonlyArray<{ readonly label: string; readonly on: string; readonly band: string; readonly limit: string; readonly cells: readonly ComparisonCell[] }>;
+  readonly rows: ReadonlyArray<{
+    readonly label: string;
+    readonly on: string;
+    readonly band: string;
+    readonly limit: string;
+    readonly cells: readonly ComparisonCell[];
+  }>;
   /** Ranked candidates best first, then the unranked, each with its reason. */
   readonly ranking: ReadonlyArray<{ readonly rank: string; readonly label: string; readonly reason: string }>;
   readonly baseline: string;
   /** Per limit: each other candidate's worst minus the baseline's. */
-  readonly differences: ReadonlyArray<{ readonly label: string; readonly on: string; readonly band: string; readonly cells: ReadonlyArray<{ readonly label: string; readonly text: string; readonly value: number | null }> }>;
+  readonly differences: ReadonlyArray<{
+    readonly label: string;
+    readonly on: string;
+    readonly band: string;
+    readonly cells: ReadonlyArray<{ readonly label: string; readonly text: string; readonly value: number | null }>;
+  }>;
   readonly plots: readonly PlotBlock[];
   readonly differencePlots: readonly PlotBlock[];
   readonly warnings: ReadonlyArray<{ readonly where: string; readonly message: string }>;

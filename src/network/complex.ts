@@ -16,19 +16,10 @@ export const sub = (a: C, b: C): C => c(a.re - b.re, a.im - b.im);
 export const mul = (a: C, b: C): C => c(a.re * b.re - a.im * b.im, a.re * b.im + a.im * b.re);
 export const scale = (a: C, f: number): C => c(a.re * f, a.im * f);
 export const neg = (a: C): C => c(-a.re, -a.im);
-export const conj = (a: C): C => c(a.re, -a.im);
-export const abs = (a: C): number => Math.hypot(a.re, a.im);
-export const abs2 = (a: C): number => a.re * a.re + a.im * a.im;
 
 export function div(a: C, b: C): C {
   const d = b.re * b.re + b.im * b.im;
   return c((a.re * b.re + a.im * b.im) / d, (a.im * b.re - a.re * b.im) / d);
-}
-
-/** From magnitude and angle in degrees. */
-export function polarDeg(mag: number, deg: number): C {
-  const r = (deg * Math.PI) / 180;
-  return c(mag * Math.cos(r), mag * Math.sin(r));
 }
 
 /** Reads element (i, j) of the n×n matrix at `a[off…]`. */

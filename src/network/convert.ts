@@ -84,7 +84,11 @@ export function sToZ(net: Network): ParameterMatrices {
 export function sToY(net: Network): ParameterMatrices {
   const n = net.ports;
   const data = bilinearMap(net.s, n, +1, -1, +1, new Float64Array(net.s.length));
-  scaleSymmetric(data, n, net.z0.map((r) => 1 / Math.sqrt(r)));
+  scaleSymmetric(
+    data,
+    n,
+    net.z0.map((r) => 1 / Math.sqrt(r)),
+  );
   return { kind: 'Y', ports: n, freqHz: net.freqHz, data };
 }
 
@@ -92,7 +96,11 @@ export function sToY(net: Network): ParameterMatrices {
 export function zToS(freqHz: Float64Array, z: Float64Array, z0: Float64Array): Network {
   const n = z0.length;
   const norm = z.slice();
-  scaleSymmetric(norm, n, z0.map((r) => 1 / Math.sqrt(r)));
+  scaleSymmetric(
+    norm,
+    n,
+    z0.map((r) => 1 / Math.sqrt(r)),
+  );
   return makeNetwork(freqHz, z0, zNormalizedToSInPlace(norm, n), n);
 }
 
@@ -129,7 +137,8 @@ export function renormalize(net: Network, z0New: Float64Array | number): Network
   const gamma = new Float64Array(n);
   const a = new Float64Array(n);
   for (let i = 0; i < n; i++) {
-    const r = net.z0[i], rn = target[i];
+    const r = net.z0[i],
+      rn = target[i];
     gamma[i] = (rn - r) / (rn + r);
     a[i] = (2 * Math.sqrt(r * rn)) / (r + rn);
   }
@@ -141,7 +150,8 @@ export function renormalize(net: Network, z0New: Float64Array | number): Network
     for (let i = 0; i < n; i++) {
       for (let j = 0; j < n; j++) {
         const p = 2 * (i * n + j);
-        const sr = net.s[off + p], si = net.s[off + p + 1];
+        const sr = net.s[off + p],
+          si = net.s[off + p + 1];
         ws.num[p] = sr - (i === j ? gamma[i] : 0);
         ws.num[p + 1] = si;
         ws.den[p] = (i === j ? 1 : 0) - gamma[i] * sr;

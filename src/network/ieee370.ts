@@ -80,7 +80,8 @@ export function reciprocityMetric(net: Network): QualityMetric | null {
     for (let i = 0; i < n; i++) {
       for (let j = 0; j < n; j++) {
         if (i === j) continue;
-        const a = off + 2 * (i * n + j), b = off + 2 * (j * n + i);
+        const a = off + 2 * (i * n + j),
+          b = off + 2 * (j * n + i);
         sum += Math.hypot(net.s[a] - net.s[b], net.s[a + 1] - net.s[b + 1]);
       }
     }
@@ -99,11 +100,16 @@ export function causalityMetric(net: Network): QualityMetric | null {
   const stride = 2 * n * n;
   let worst = Infinity;
   for (let e = 0; e < n * n; e++) {
-    let pos = 0, total = 0;
+    let pos = 0,
+      total = 0;
     for (let q = 0; q + 2 < k; q++) {
-      const p0 = 2 * e + q * stride, p1 = p0 + stride, p2 = p1 + stride;
-      const vr = net.s[p1] - net.s[p0], vi = net.s[p1 + 1] - net.s[p0 + 1];
-      const wr = net.s[p2] - net.s[p1], wi = net.s[p2 + 1] - net.s[p1 + 1];
+      const p0 = 2 * e + q * stride,
+        p1 = p0 + stride,
+        p2 = p1 + stride;
+      const vr = net.s[p1] - net.s[p0],
+        vi = net.s[p1 + 1] - net.s[p0 + 1];
+      const wr = net.s[p2] - net.s[p1],
+        wi = net.s[p2 + 1] - net.s[p1 + 1];
       const r = wr * vi - wi * vr;
       if (r > 0) pos += r;
       total += Math.abs(r);

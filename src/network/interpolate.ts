@@ -22,7 +22,8 @@ export class ExtrapolationError extends RangeError {}
 
 /** Index i with x[i] ≤ f ≤ x[i+1] (x ascending), by bisection. */
 export function bracket(x: Float64Array, f: number): number {
-  let lo = 0, hi = x.length - 1;
+  let lo = 0,
+    hi = x.length - 1;
   while (hi - lo > 1) {
     const mid = (lo + hi) >> 1;
     if (x[mid] <= f) lo = mid;
@@ -38,7 +39,8 @@ export function interpolateAt(x: Float64Array, y: Float64Array, f: number): numb
   if (f === x[i]) return y[i];
   if (f === x[i + 1]) return y[i + 1];
   const t = (f - x[i]) / (x[i + 1] - x[i]);
-  const a = y[i], b = y[i + 1];
+  const a = y[i],
+    b = y[i + 1];
   // strictly between a finite value and ±∞ the line is ±∞ (its limit), not ∞·0 or ∞ − ∞ = NaN
   if (!Number.isFinite(a) || !Number.isFinite(b)) return Number.isFinite(a) ? b : Number.isFinite(b) || a === b ? a : NaN;
   return a + t * (b - a);
@@ -48,7 +50,8 @@ export function interpolate(net: Network, freqHz: Float64Array, method: Interpol
   const src = net.freqHz;
   const k = src.length;
   if (k === 0) throw new ExtrapolationError('cannot interpolate a network with no frequency points');
-  const f0 = src[0], f1 = src[k - 1];
+  const f0 = src[0],
+    f1 = src[k - 1];
   for (let q = 0; q < freqHz.length; q++) {
     const f = freqHz[q];
     if (!(f >= f0 && f <= f1)) {
@@ -65,7 +68,8 @@ export function interpolate(net: Network, freqHz: Float64Array, method: Interpol
   for (let q = 0; q < freqHz.length; q++) idx[q] = k === 1 ? 0 : bracket(src, freqHz[q]);
   for (let e = 0; e < nn; e++) {
     for (let p = 0; p < k; p++) {
-      const re = net.s[2 * (p * nn + e)], im = net.s[2 * (p * nn + e) + 1];
+      const re = net.s[2 * (p * nn + e)],
+        im = net.s[2 * (p * nn + e) + 1];
       if (method === 'polar') {
         a[p] = Math.hypot(re, im);
         b[p] = (Math.atan2(im, re) * 180) / Math.PI;

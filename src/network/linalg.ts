@@ -7,23 +7,8 @@
  * network's data array without copying.
  */
 
-/** Allocates an n×n complex matrix (zeros). */
-export function cmat(n: number): Float64Array {
-  return new Float64Array(2 * n * n);
-}
-
-/** Copies an n×n matrix from `src[srcOff…]` into `dst[dstOff…]`. */
-export function cmatCopy(src: Float64Array, srcOff: number, n: number, dst: Float64Array, dstOff: number): void {
-  dst.set(src.subarray(srcOff, srcOff + 2 * n * n), dstOff);
-}
-
 /** dst = a · b (dst must not alias a or b). */
-export function cmatMul(
-  a: Float64Array, aOff: number,
-  b: Float64Array, bOff: number,
-  n: number,
-  dst: Float64Array, dstOff: number,
-): void {
+export function cmatMul(a: Float64Array, aOff: number, b: Float64Array, bOff: number, n: number, dst: Float64Array, dstOff: number): void {
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) {
       let re = 0;
@@ -31,7 +16,10 @@ export function cmatMul(
       for (let k = 0; k < n; k++) {
         const ai = aOff + 2 * (i * n + k);
         const bi = bOff + 2 * (k * n + j);
-        const ar = a[ai], aim = a[ai + 1], br = b[bi], bim = b[bi + 1];
+        const ar = a[ai],
+          aim = a[ai + 1],
+          br = b[bi],
+          bim = b[bi + 1];
         re += ar * br - aim * bim;
         im += ar * bim + aim * br;
       }
@@ -49,8 +37,11 @@ export function cmatMul(
  * working precision.
  */
 export function cmatInv(
-  src: Float64Array, srcOff: number, n: number,
-  dst: Float64Array, dstOff: number,
+  src: Float64Array,
+  srcOff: number,
+  n: number,
+  dst: Float64Array,
+  dstOff: number,
   work: Float64Array = new Float64Array(2 * n * n),
 ): boolean {
   const m = work;
@@ -85,9 +76,11 @@ export function cmatInv(
       }
     }
     const pp = 2 * (col * n + col);
-    const pr = m[pp], pi = m[pp + 1];
+    const pr = m[pp],
+      pi = m[pp + 1];
     const den = pr * pr + pi * pi;
-    const ir = pr / den, ii = -pi / den;
+    const ir = pr / den,
+      ii = -pi / den;
     for (let j = 0; j < n; j++) {
       const a = 2 * (col * n + j);
       mulInPlace(m, a, ir, ii);
@@ -96,15 +89,18 @@ export function cmatInv(
     for (let r = 0; r < n; r++) {
       if (r === col) continue;
       const f = 2 * (r * n + col);
-      const fr = m[f], fi = m[f + 1];
+      const fr = m[f],
+        fi = m[f + 1];
       if (fr === 0 && fi === 0) continue;
       for (let j = 0; j < n; j++) {
         const t = 2 * (r * n + j);
         const s = 2 * (col * n + j);
         m[t] -= fr * m[s] - fi * m[s + 1];
         m[t + 1] -= fr * m[s + 1] + fi * m[s];
-        const dt = dstOff + t, ds = dstOff + s;
-        const sr = dst[ds], si = dst[ds + 1];
+        const dt = dstOff + t,
+          ds = dstOff + s;
+        const sr = dst[ds],
+          si = dst[ds + 1];
         dst[dt] -= fr * sr - fi * si;
         dst[dt + 1] -= fr * si + fi * sr;
       }
@@ -114,7 +110,8 @@ export function cmatInv(
 }
 
 function swap(a: Float64Array, i: number, j: number): void {
-  const r = a[i], im = a[i + 1];
+  const r = a[i],
+    im = a[i + 1];
   a[i] = a[j];
   a[i + 1] = a[j + 1];
   a[j] = r;
@@ -122,49 +119,10 @@ function swap(a: Float64Array, i: number, j: number): void {
 }
 
 function mulInPlace(a: Float64Array, i: number, br: number, bi: number): void {
-  const ar = a[i], ai = a[i + 1];
+  const ar = a[i],
+    ai = a[i + 1];
   a[i] = ar * br - ai * bi;
   a[i + 1] = ar * bi + ai * br;
-}
-
-/**
- * Eigenvalues of a real symmetric n×n matrix (row-major, overwritten) by the
- * cyclic Jacobi method. Returns them in descending order.
- */
-export function symmetricEigenvalues(a: Float64Array, n: number): Float64Array {
-  for (let sweep = 0; sweep < 100; sweep++) {
-    let off = 0;
-    let diag = 0;
-    for (let i = 0; i < n; i++) {
-      diag += a[i * n + i] * a[i * n + i];
-      for (let j = i + 1; j < n; j++) off += a[i * n + j] * a[i * n + j];
-    }
-    if (off <= 1e-30 * (diag || 1)) break;
-    for (let p = 0; p < n; p++) {
-      for (let q = p + 1; q < n; q++) {
-        const apq = a[p * n + q];
-        if (apq === 0) continue;
-        const app = a[p * n + p], aqq = a[q * n + q];
-        const theta = (aqq - app) / (2 * apq);
-        const t = Math.sign(theta || 1) / (Math.abs(theta) + Math.sqrt(theta * theta + 1));
-        const c = 1 / Math.sqrt(t * t + 1);
-        const s = t * c;
-        for (let k = 0; k < n; k++) {
-          const akp = a[k * n + p], akq = a[k * n + q];
-          a[k * n + p] = c * akp - s * akq;
-          a[k * n + q] = s * akp + c * akq;
-        }
-        for (let k = 0; k < n; k++) {
-          const apk = a[p * n + k], aqk = a[q * n + k];
-          a[p * n + k] = c * apk - s * aqk;
-          a[q * n + k] = s * apk + c * aqk;
-        }
-      }
-    }
-  }
-  const out = new Float64Array(n);
-  for (let i = 0; i < n; i++) out[i] = a[i * n + i];
-  return out.sort().reverse();
 }
 
 /**
@@ -176,7 +134,8 @@ export function symmetricEigenvalues(a: Float64Array, n: number): Float64Array {
 export function hermitianEigenvalues(a: Float64Array, n: number): Float64Array {
   const re = (i: number, j: number) => 2 * (i * n + j);
   for (let sweep = 0; sweep < 60; sweep++) {
-    let off = 0, diag = 0;
+    let off = 0,
+      diag = 0;
     for (let i = 0; i < n; i++) {
       diag += a[re(i, i)] * a[re(i, i)];
       for (let j = i + 1; j < n; j++) off += a[re(i, j)] ** 2 + a[re(i, j) + 1] ** 2;
@@ -184,41 +143,52 @@ export function hermitianEigenvalues(a: Float64Array, n: number): Float64Array {
     if (off <= 1e-32 * (diag || 1)) break;
     for (let p = 0; p < n; p++) {
       for (let q = p + 1; q < n; q++) {
-        const zr = a[re(p, q)], zi = a[re(p, q) + 1];
+        const zr = a[re(p, q)],
+          zi = a[re(p, q) + 1];
         const r = Math.hypot(zr, zi);
         if (r === 0) continue;
         // phase: column q times e^(−iφ), row q times e^(iφ), where z = r·e^(iφ)
-        const er = zr / r, ei = zi / r;
+        const er = zr / r,
+          ei = zi / r;
         for (let k = 0; k < n; k++) {
           if (k !== q) {
-            const c0 = re(k, q), c1 = c0 + 1; // A[k][q] · conj(e)
-            const xr = a[c0], xi = a[c1];
+            const c0 = re(k, q),
+              c1 = c0 + 1; // A[k][q] · conj(e)
+            const xr = a[c0],
+              xi = a[c1];
             a[c0] = xr * er + xi * ei;
             a[c1] = xi * er - xr * ei;
-            const r0 = re(q, k), r1 = r0 + 1; // A[q][k] · e
-            const yr = a[r0], yi = a[r1];
+            const r0 = re(q, k),
+              r1 = r0 + 1; // A[q][k] · e
+            const yr = a[r0],
+              yi = a[r1];
             a[r0] = yr * er - yi * ei;
             a[r1] = yr * ei + yi * er;
           }
         }
         // now A[p][q] = A[q][p] = r (real); the real rotation that zeroes it
-        const app = a[re(p, p)], aqq = a[re(q, q)];
+        const app = a[re(p, p)],
+          aqq = a[re(q, q)];
         const theta = (aqq - app) / (2 * r);
         const t = Math.sign(theta || 1) / (Math.abs(theta) + Math.sqrt(theta * theta + 1));
         const c = 1 / Math.sqrt(t * t + 1);
         const sn = t * c;
         for (let k = 0; k < n; k++) {
           for (let part = 0; part < 2; part++) {
-            const kp = re(k, p) + part, kq = re(k, q) + part;
-            const x = a[kp], y = a[kq];
+            const kp = re(k, p) + part,
+              kq = re(k, q) + part;
+            const x = a[kp],
+              y = a[kq];
             a[kp] = c * x - sn * y;
             a[kq] = sn * x + c * y;
           }
         }
         for (let k = 0; k < n; k++) {
           for (let part = 0; part < 2; part++) {
-            const pk = re(p, k) + part, qk = re(q, k) + part;
-            const x = a[pk], y = a[qk];
+            const pk = re(p, k) + part,
+              qk = re(q, k) + part;
+            const x = a[pk],
+              y = a[qk];
             a[pk] = c * x - sn * y;
             a[qk] = sn * x + c * y;
           }
@@ -235,11 +205,15 @@ export function hermitianEigenvalues(a: Float64Array, n: number): Float64Array {
 function gram(src: Float64Array, off: number, n: number, h: Float64Array): void {
   for (let i = 0; i < n; i++) {
     for (let j = i; j < n; j++) {
-      let re = 0, im = 0;
+      let re = 0,
+        im = 0;
       for (let k = 0; k < n; k++) {
         const a = off + 2 * (k * n + i); // conj(S[k][i])
         const b = off + 2 * (k * n + j);
-        const ar = src[a], ai = -src[a + 1], br = src[b], bi = src[b + 1];
+        const ar = src[a],
+          ai = -src[a + 1],
+          br = src[b],
+          bi = src[b + 1];
         re += ar * br - ai * bi;
         im += ar * bi + ai * br;
       }
@@ -269,7 +243,10 @@ export function spectralNorm(src: Float64Array, off: number, n: number, work: Fl
   if (n === 1) return Math.hypot(src[off], src[off + 1]);
   if (n === 2) {
     gram(src, off, 2, work);
-    const a = work[0], d = work[6], br = work[2], bi = work[3];
+    const a = work[0],
+      d = work[6],
+      br = work[2],
+      bi = work[3];
     // tr² − 4·det written as (a − d)² + 4|b|²: no cancellation when the two singular values are close
     return Math.sqrt((a + d + Math.hypot(a - d, 2 * Math.hypot(br, bi))) / 2);
   }
@@ -302,16 +279,18 @@ export function largestHermitianEigenvalue(a: Float64Array, n: number): number {
     let norm2 = 0;
     for (let i = k + 1; i < n; i++) norm2 += a[at(i, k)] ** 2 + a[at(i, k) + 1] ** 2;
     const norm = Math.sqrt(norm2);
-    const x0r = a[at(k + 1, k)], x0i = a[at(k + 1, k) + 1];
+    const x0r = a[at(k + 1, k)],
+      x0i = a[at(k + 1, k) + 1];
     const x0 = Math.hypot(x0r, x0i);
     e[k] = norm;
     if (norm === 0) continue;
-    const ur = x0 === 0 ? 1 : x0r / x0, ui = x0 === 0 ? 0 : x0i / x0;
+    const ur = x0 === 0 ? 1 : x0r / x0,
+      ui = x0 === 0 ? 0 : x0i / x0;
     // v0 = x0 + e^{iθ}‖x‖ (α = −e^{iθ}‖x‖); the rest of v is x
     for (let i = 0; i < 2 * n; i++) v[i] = 0;
     v[2 * (k + 1)] = x0r + ur * norm;
     v[2 * (k + 1) + 1] = x0i + ui * norm;
-    let vn = (v[2 * (k + 1)] ** 2 + v[2 * (k + 1) + 1] ** 2);
+    let vn = v[2 * (k + 1)] ** 2 + v[2 * (k + 1) + 1] ** 2;
     for (let i = k + 2; i < n; i++) {
       v[2 * i] = a[at(i, k)];
       v[2 * i + 1] = a[at(i, k) + 1];
@@ -325,9 +304,13 @@ export function largestHermitianEigenvalue(a: Float64Array, n: number): number {
     // p = A v over the trailing block, K = vᴴ p (real), w = p − K v; A ← A − 2(v wᴴ + w vᴴ)
     let kr = 0;
     for (let i = k + 1; i < n; i++) {
-      let re = 0, im = 0;
+      let re = 0,
+        im = 0;
       for (let j = k + 1; j < n; j++) {
-        const ar = a[at(i, j)], ai = a[at(i, j) + 1], br = v[2 * j], bi = v[2 * j + 1];
+        const ar = a[at(i, j)],
+          ai = a[at(i, j) + 1],
+          br = v[2 * j],
+          bi = v[2 * j + 1];
         re += ar * br - ai * bi;
         im += ar * bi + ai * br;
       }
@@ -340,10 +323,16 @@ export function largestHermitianEigenvalue(a: Float64Array, n: number): number {
       p[2 * i + 1] -= kr * v[2 * i + 1];
     }
     for (let i = k + 1; i < n; i++) {
-      const vr = v[2 * i], vi = v[2 * i + 1], wr = p[2 * i], wi = p[2 * i + 1];
+      const vr = v[2 * i],
+        vi = v[2 * i + 1],
+        wr = p[2 * i],
+        wi = p[2 * i + 1];
       for (let j = k + 1; j < n; j++) {
         // v_i·conj(w_j) + w_i·conj(v_j)
-        const vjr = v[2 * j], vji = v[2 * j + 1], wjr = p[2 * j], wji = p[2 * j + 1];
+        const vjr = v[2 * j],
+          vji = v[2 * j + 1],
+          wjr = p[2 * j],
+          wji = p[2 * j + 1];
         a[at(i, j)] -= 2 * (vr * wjr + vi * wji + wr * vjr + wi * vji);
         a[at(i, j) + 1] -= 2 * (vi * wjr - vr * wji + wi * vjr - wr * vji);
       }
@@ -352,7 +341,8 @@ export function largestHermitianEigenvalue(a: Float64Array, n: number): number {
   for (let i = 0; i < n; i++) d[i] = a[at(i, i)];
   if (n >= 2) e[n - 2] = Math.hypot(a[at(n - 1, n - 2)], a[at(n - 1, n - 2) + 1]);
   // bisection for the largest eigenvalue of the symmetric tridiagonal (d, e)
-  let lo = Infinity, hi = -Infinity;
+  let lo = Infinity,
+    hi = -Infinity;
   for (let i = 0; i < n; i++) {
     const r = (i > 0 ? e[i - 1] : 0) + (i < n - 1 ? e[i] : 0);
     lo = Math.min(lo, d[i] - r);
@@ -360,7 +350,8 @@ export function largestHermitianEigenvalue(a: Float64Array, n: number): number {
   }
   /** How many eigenvalues are below x (the negative pivots of T − xI). */
   const below = (x: number) => {
-    let count = 0, q = 1;
+    let count = 0,
+      q = 1;
     for (let i = 0; i < n; i++) {
       q = d[i] - x - (i > 0 ? (e[i - 1] * e[i - 1]) / q : 0);
       if (q === 0) q = -Number.EPSILON * (Math.abs(x) + 1); // a zero pivot counts as just below

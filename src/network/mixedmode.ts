@@ -21,9 +21,15 @@ import { makeNetwork, type Network } from './network.js';
 export type PortPairs = ReadonlyArray<readonly [number, number]>;
 
 /** Pairs (1,2) and (3,4): ports 1, 2 form the first differential port. */
-export const PAIRS_ADJACENT: PortPairs = [[1, 2], [3, 4]];
+export const PAIRS_ADJACENT: PortPairs = [
+  [1, 2],
+  [3, 4],
+];
 /** Pairs (1,3) and (2,4): odd ports positive, the first pair on ports 1 and 3. */
-export const PAIRS_ACROSS: PortPairs = [[1, 3], [2, 4]];
+export const PAIRS_ACROSS: PortPairs = [
+  [1, 3],
+  [2, 4],
+];
 
 export interface MixedModeNetwork extends Network {
   /** Port labels in order: D1…DM then C1…CM. */
@@ -42,7 +48,9 @@ export function toMixedMode(net: Network, pairs: PortPairs = PAIRS_ADJACENT): Mi
       seen.add(x);
     }
     if (net.z0[p - 1] !== net.z0[q - 1]) {
-      throw new RangeError(`mixed-mode: ports ${p} and ${q} have different references (${net.z0[p - 1]} Ω, ${net.z0[q - 1]} Ω); renormalize them to one value first`);
+      throw new RangeError(
+        `mixed-mode: ports ${p} and ${q} have different references (${net.z0[p - 1]} Ω, ${net.z0[q - 1]} Ω); renormalize them to one value first`,
+      );
     }
   }
   // M (real, orthogonal): row m = differential m, row M + m = common m.
@@ -61,7 +69,8 @@ export function toMixedMode(net: Network, pairs: PortPairs = PAIRS_ADJACENT): Mi
     // tmp = S · Mᵀ
     for (let i = 0; i < n; i++) {
       for (let j = 0; j < n; j++) {
-        let re = 0, im = 0;
+        let re = 0,
+          im = 0;
         for (let k = 0; k < n; k++) {
           const w = M[j * n + k];
           if (w === 0) continue;
@@ -75,7 +84,8 @@ export function toMixedMode(net: Network, pairs: PortPairs = PAIRS_ADJACENT): Mi
     // out = M · tmp
     for (let i = 0; i < n; i++) {
       for (let j = 0; j < n; j++) {
-        let re = 0, im = 0;
+        let re = 0,
+          im = 0;
         for (let k = 0; k < n; k++) {
           const w = M[i * n + k];
           if (w === 0) continue;
@@ -89,7 +99,8 @@ export function toMixedMode(net: Network, pairs: PortPairs = PAIRS_ADJACENT): Mi
   }
   const z0 = new Float64Array(n);
   pairs.forEach(([p, q], k) => {
-    const rp = net.z0[p - 1], rq = net.z0[q - 1];
+    const rp = net.z0[p - 1],
+      rq = net.z0[q - 1];
     z0[k] = rp + rq;
     z0[m + k] = (rp * rq) / (rp + rq);
   });

@@ -39,21 +39,6 @@ export function makeNetwork(freqHz: Float64Array, z0: Float64Array | number, s: 
   return Object.freeze({ ports: n, freqHz, z0: z, s });
 }
 
-/** Number of frequency points. */
-export function pointCount(net: Network): number {
-  return net.freqHz.length;
-}
-
-/** Index of the re part of S(i+1)(j+1) at frequency k (0-based i, j, k). */
-export function sIndex(n: number, k: number, i: number, j: number): number {
-  return 2 * ((k * n + i) * n + j);
-}
-
-/** Offset of frequency k's matrix in `s`. */
-export function matrixOffset(n: number, k: number): number {
-  return 2 * n * n * k;
-}
-
 /**
  * The trace of one entry, S(to)(from) in the trade's notation: `to` is the
  * receiving port and `from` the driving port, both 1-based. S21 is entry(net, 2, 1).
@@ -79,9 +64,4 @@ export function checkPort(net: Network, port: number): void {
   if (!Number.isInteger(port) || port < 1 || port > net.ports) {
     throw new RangeError(`port ${port} is not a port of this ${net.ports}-port network (1…${net.ports})`);
   }
-}
-
-/** A copy of the network with different S data (same grid and references). */
-export function withS(net: Network, s: Float64Array, z0: Float64Array = net.z0): Network {
-  return makeNetwork(net.freqHz, z0, s, net.ports);
 }

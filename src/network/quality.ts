@@ -32,7 +32,8 @@ export function passivity(net: Network, tolerance = PASSIVITY_TOLERANCE): Passiv
   const k = net.freqHz.length;
   const per = new Float64Array(k);
   const work = new Float64Array(2 * n * n);
-  let max = -Infinity, at = NaN;
+  let max = -Infinity,
+    at = NaN;
   for (let q = 0; q < k; q++) {
     const v = spectralNorm(net.s, 2 * n * n * q, n, work);
     per[q] = v;
@@ -63,13 +64,15 @@ export const RECIPROCITY_TOLERANCE = 1e-3;
 export function reciprocity(net: Network, tolerance = RECIPROCITY_TOLERANCE): ReciprocityResult {
   const n = net.ports;
   const k = net.freqHz.length;
-  let max = 0, at = n > 1 && k > 0 ? net.freqHz[0] : NaN;
+  let max = 0,
+    at = n > 1 && k > 0 ? net.freqHz[0] : NaN;
   let pair: [number, number] | null = n > 1 ? [2, 1] : null;
   for (let q = 0; q < k; q++) {
     const off = 2 * n * n * q;
     for (let i = 0; i < n; i++) {
       for (let j = 0; j < i; j++) {
-        const a = off + 2 * (i * n + j), b = off + 2 * (j * n + i);
+        const a = off + 2 * (i * n + j),
+          b = off + 2 * (j * n + i);
         const d = Math.hypot(net.s[a] - net.s[b], net.s[a + 1] - net.s[b + 1]);
         if (d > max) {
           max = d;

@@ -22,7 +22,8 @@ export function magnitude(t: ComplexTrace): Float64Array {
 export function db(t: ComplexTrace): Float64Array {
   const out = new Float64Array(t.re.length);
   for (let k = 0; k < out.length; k++) {
-    const re = t.re[k], im = t.im[k];
+    const re = t.re[k],
+      im = t.im[k];
     out[k] = 10 * Math.log10(re * re + im * im);
   }
   return out;
@@ -34,9 +35,6 @@ export function lossDb(t: ComplexTrace): Float64Array {
   for (let k = 0; k < out.length; k++) out[k] = -out[k];
   return out;
 }
-
-export const returnLoss = lossDb;
-export const insertionLoss = lossDb;
 
 export function vswr(t: ComplexTrace): Float64Array {
   const out = new Float64Array(t.re.length);

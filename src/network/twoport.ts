@@ -41,7 +41,8 @@ function mapEach(src: Float64Array, f: Map2): Float64Array {
 
 export function sToAbcd(net: Network): TwoPortMatrices {
   requireTwoPort(net, 'ABCD');
-  const z1 = net.z0[0], z2 = net.z0[1];
+  const z1 = net.z0[0],
+    z2 = net.z0[1];
   const k = 1 / (2 * Math.sqrt(z1 * z2));
   const data = mapEach(net.s, (s11, s12, s21, s22) => {
     const p = mul(s12, s21);
@@ -100,7 +101,8 @@ export function cascade(a: Network, b: Network): Network {
     throw new RangeError('cascade: the two networks must share one frequency grid (interpolate one of them first)');
   }
   const bb = b.z0[0] === a.z0[1] ? b : renormalize(b, Float64Array.of(a.z0[1], b.z0[1]));
-  const ta = sToT(a), tb = sToT(bb);
+  const ta = sToT(a),
+    tb = sToT(bb);
   const prod = new Float64Array(ta.data.length);
   for (let off = 0; off < prod.length; off += 8) {
     for (let i = 0; i < 2; i++) {

@@ -11,7 +11,8 @@ export function normalizeBands(spec: Obj, { err, at }: Context): { bands: Map<st
     for (const name of Object.keys(spec.bands)) brokenBands.add(name);
     for (const [name, b] of Object.entries(spec.bands)) {
       if (!isObj(b) || b.from === undefined || b.to === undefined) continue;
-      const from = parseQuantity(b.from as string), to = parseQuantity(b.to as string);
+      const from = parseQuantity(b.from as string),
+        to = parseQuantity(b.to as string);
       if (!from.ok || !to.ok) continue;
       if (from.value < 0) {
         err('bad-value', `bands.${name}.from`, `band ${name} starts at a negative frequency (${b.from}); frequencies are 0 Hz or above`);

@@ -35,14 +35,22 @@ export function normalizeCheck(kind: 'limit' | 'report', e: Obj, path: string, s
   if (!figure && brokenCustom.has(figureName)) return null; // its expression's error is reported already
   if (!figure) {
     const near = nearest(figureName, [...FIGURES.keys(), ...custom.keys()]);
-    err('unknown-figure', `${path}.figure`, `unknown figure "${figureName}"${near ? `; did you mean "${near}"?` : `; expected one of ${[...FIGURES.keys()].join(', ')}${custom.size ? ` or a custom figure (${[...custom.keys()].join(', ')})` : ''}`}`);
+    err(
+      'unknown-figure',
+      `${path}.figure`,
+      `unknown figure "${figureName}"${near ? `; did you mean "${near}"?` : `; expected one of ${[...FIGURES.keys()].join(', ')}${custom.size ? ` or a custom figure (${[...custom.keys()].join(', ')})` : ''}`}`,
+    );
     return null;
   }
   const bandName = typeof e.band === 'string' ? e.band : '';
   const band = bands.get(bandName);
   if (!band && typeof e.band === 'string' && !brokenBands.has(bandName)) {
     const near = nearest(bandName, bands.keys());
-    err('unknown-band', `${path}.band`, `band "${bandName}" is not defined${near ? `; did you mean "${near}"?` : bands.size ? `; the bands are ${[...bands.keys()].join(', ')}` : '; define it under bands:'}`);
+    err(
+      'unknown-band',
+      `${path}.band`,
+      `band "${bandName}" is not defined${near ? `; did you mean "${near}"?` : bands.size ? `; the bands are ${[...bands.keys()].join(', ')}` : '; define it under bands:'}`,
+    );
   }
 
   // operands
@@ -70,11 +78,21 @@ export function normalizeCheck(kind: 'limit' | 'report', e: Obj, path: string, s
       on = params.map(parameterName);
       break;
     case 'port-pair': {
-      if (onList) err('bad-parameter', `${path}.on`, `${figure.id} is computed from the four S-parameters of a port pair: give ports: [a, b] (default [1, 2]) instead of on`);
+      if (onList)
+        err(
+          'bad-parameter',
+          `${path}.on`,
+          `${figure.id} is computed from the four S-parameters of a port pair: give ports: [a, b] (default [1, 2]) instead of on`,
+        );
       const ports = Array.isArray(e.ports) && e.ports.length === 2 ? (e.ports as number[]) : [1, 2];
       if (ports[0] === ports[1]) err('bad-value', `${path}.ports`, `${figure.id} needs two different ports`);
       const [a, b] = ports;
-      const four: SParameter[] = [{ to: a, from: a }, { to: b, from: a }, { to: a, from: b }, { to: b, from: b }];
+      const four: SParameter[] = [
+        { to: a, from: a },
+        { to: b, from: a },
+        { to: a, from: b },
+        { to: b, from: b },
+      ];
       items = [{ params: four, label: four.map(parameterName).join('/') }];
       on = four.map(parameterName);
       break;
@@ -87,10 +105,14 @@ export function normalizeCheck(kind: 'limit' | 'report', e: Obj, path: string, s
       break;
     }
   }
-  if (params.some((p) => p.mode) && params.some((p) => !p.mode)) err('bad-parameter', `${path}.on`, `${figure.id} mixes mixed-mode and single-ended parameters; give them in separate limits`);
-  if (e.ports !== undefined && figure.operands !== 'port-pair') err('bad-value', `${path}.ports`, `"ports" belongs to the stability figures; ${figure.id} takes "on"`);
-  if (e.aperture !== undefined && !figure.accepts?.includes('aperture')) err('bad-value', `${path}.aperture`, `"aperture" belongs to group-delay figures; ${figure.id} has none`);
-  if (e.level !== undefined && !figure.accepts?.includes('level')) err('bad-value', `${path}.level`, `"level" belongs to bandwidth and center-frequency; ${figure.id} has none`);
+  if (params.some((p) => p.mode) && params.some((p) => !p.mode))
+    err('bad-parameter', `${path}.on`, `${figure.id} mixes mixed-mode and single-ended parameters; give them in separate limits`);
+  if (e.ports !== undefined && figure.operands !== 'port-pair')
+    err('bad-value', `${path}.ports`, `"ports" belongs to the stability figures; ${figure.id} takes "on"`);
+  if (e.aperture !== undefined && !figure.accepts?.includes('aperture'))
+    err('bad-value', `${path}.aperture`, `"aperture" belongs to group-delay figures; ${figure.id} has none`);
+  if (e.level !== undefined && !figure.accepts?.includes('level'))
+    err('bad-value', `${path}.level`, `"level" belongs to bandwidth and center-frequency; ${figure.id} has none`);
 
   // limit values: each must carry the figure's unit
   const want = KIND_OF_UNIT[figure.unit];
@@ -101,8 +123,14 @@ export function normalizeCheck(kind: 'limit' | 'report', e: Obj, path: string, s
     if (!q.ok) return undefined; // reported by the schema check
     if (q.kind !== want) {
       const p = `${path}.${key}`;
-      if (q.kind === 'unitless' && want === 'frequency') err('bare-frequency', p, `${key} ${raw} of ${figure.id} has no unit; a frequency always carries one (Hz, kHz, MHz, GHz)`);
-      else if (q.kind === 'unitless') err('missing-unit', p, `${key} ${raw} of ${figure.id} has no unit; ${figure.id} is in ${figure.unit}: write ${raw} ${figure.unit === 's' ? 'ns' : figure.unit}`);
+      if (q.kind === 'unitless' && want === 'frequency')
+        err('bare-frequency', p, `${key} ${raw} of ${figure.id} has no unit; a frequency always carries one (Hz, kHz, MHz, GHz)`);
+      else if (q.kind === 'unitless')
+        err(
+          'missing-unit',
+          p,
+          `${key} ${raw} of ${figure.id} has no unit; ${figure.id} is in ${figure.unit}: write ${raw} ${figure.unit === 's' ? 'ns' : figure.unit}`,
+        );
       else err('unit-mismatch', p, `${key} "${raw}" of ${figure.id} is ${KIND_NAMES[q.kind]}; ${figure.id} is ${KIND_NAMES[want]}`);
       return undefined;
     }
@@ -112,19 +140,27 @@ export function normalizeCheck(kind: 'limit' | 'report', e: Obj, path: string, s
   let nominal: number | null = null;
   const bandCtx = band ?? { fromHz: 0, toHz: 0 };
   if (kind === 'limit') {
-    const max = value('max'), min = value('min'), nom = value('nominal'), tol = value('tolerance');
+    const max = value('max'),
+      min = value('min'),
+      nom = value('nominal'),
+      tol = value('tolerance');
     // a key written with a value the schema refused counts as given: its own error says what is wrong
     const written = (k: string) => e[k] !== undefined || ctx.positions.has(`${path}#${k}`);
     const hasTol = written('tolerance');
     if (!written('max') && !written('min') && !hasTol) {
-      err('bad-limit', path, `limit on ${figure.id} gives no max, min or tolerance; expected max, min, both, or nominal ± tolerance (to report a figure without a limit, list it under report:)`);
+      err(
+        'bad-limit',
+        path,
+        `limit on ${figure.id} gives no max, min or tolerance; expected max, min, both, or nominal ± tolerance (to report a figure without a limit, list it under report:)`,
+      );
     } else if (hasTol && (written('max') || written('min'))) {
       err('bad-limit', path, `limit on ${figure.id} mixes tolerance with max/min; give either max/min or nominal ± tolerance`);
     } else if (written('nominal') && !hasTol) {
       err('bad-limit', `${path}.nominal`, `nominal without tolerance: give tolerance, the half-width of the allowed window`);
     } else if (hasTol) {
       const n = nom ?? figure.defaultNominal?.({ part: partCtx, band: bandCtx });
-      if (n === undefined && e.nominal === undefined) err('bad-limit', `${path}.tolerance`, `${figure.id} has no default nominal; give nominal with the tolerance`);
+      if (n === undefined && e.nominal === undefined)
+        err('bad-limit', `${path}.tolerance`, `${figure.id} has no default nominal; give nominal with the tolerance`);
       if (tol !== undefined && tol < 0) err('bad-limit', `${path}.tolerance`, 'tolerance must not be negative');
       if (n !== undefined && tol !== undefined) {
         limit = { nominal: n, tolerance: tol };
@@ -146,7 +182,11 @@ export function normalizeCheck(kind: 'limit' | 'report', e: Obj, path: string, s
       when[k] = text;
       if (!measurements.some((m) => m.conditions[k] === text)) {
         const known = [...new Set(measurements.map((m) => m.conditions[k]).filter((x) => x !== undefined))];
-        err('unknown-condition', `${path}.when.${k}`, `no measured unit has ${k}: ${text}${known.length ? `; the units have ${k} ${known.join(', ')}` : `; no unit lists the condition "${k}"`}`);
+        err(
+          'unknown-condition',
+          `${path}.when.${k}`,
+          `no measured unit has ${k}: ${text}${known.length ? `; the units have ${k} ${known.join(', ')}` : `; no unit lists the condition "${k}"`}`,
+        );
       }
     }
   }
@@ -158,19 +198,32 @@ export function normalizeCheck(kind: 'limit' | 'report', e: Obj, path: string, s
         out[k] = conditionText(v);
         if (!measurements.some((m) => m.conditions[k] === out[k])) {
           const known = [...new Set(measurements.map((m) => m.conditions[k]).filter((x) => x !== undefined))];
-          err('unknown-condition', `${path}.change.${key}.${k}`, `no measured unit has ${k}: ${out[k]}${known.length ? `; the units have ${k} ${known.join(', ')}` : `; no unit lists the condition "${k}"`}`);
+          err(
+            'unknown-condition',
+            `${path}.change.${key}.${k}`,
+            `no measured unit has ${k}: ${out[k]}${known.length ? `; the units have ${k} ${known.join(', ')}` : `; no unit lists the condition "${k}"`}`,
+          );
         }
       }
       return out;
     };
     change = { from: stage('from'), to: stage('to') };
-    if (figure.shape !== 'trace') err('bad-limit', `${path}.change`, `a change limit compares a figure point by point between two stages, and ${figure.id} has one value per unit; use a figure with a value at every point (e.g. insertion-loss)`);
+    if (figure.shape !== 'trace')
+      err(
+        'bad-limit',
+        `${path}.change`,
+        `a change limit compares a figure point by point between two stages, and ${figure.id} has one value per unit; use a figure with a value at every point (e.g. insertion-loss)`,
+      );
     if (e.when !== undefined) err('bad-limit', `${path}.when`, 'a change limit takes its units from its two stages; leave when out');
     if (kind !== 'limit') err('bad-limit', `${path}.change`, 'change belongs to limits');
   }
   const levelQ = e.level !== undefined ? parseQuantity(e.level as string) : null;
   if (levelQ && levelQ.ok && !(levelQ.value > 0 && levelQ.value <= MAX_LEVEL_DB)) {
-    err('bad-value', `${path}.level`, `level ${e.level} is out of range: the band edges sit above 0 dB and at most ${MAX_LEVEL_DB} dB below the best insertion loss (the usual values are 0.5, 1 and 3 dB)`);
+    err(
+      'bad-value',
+      `${path}.level`,
+      `level ${e.level} is out of range: the band edges sit above 0 dB and at most ${MAX_LEVEL_DB} dB below the best insertion loss (the usual values are 0.5, 1 and 3 dB)`,
+    );
   }
   if (ctx.errors.length > before || !band) return null;
   return {

@@ -13,7 +13,9 @@ import { parseYaml } from './load.js';
 import { normalizePart, type NormalizedPart } from './normalize.js';
 import { validate, type Plain } from './validate.js';
 
-export type CandidateSource = { readonly kind: 'part'; readonly path: string; readonly at: Position } | { readonly kind: 'files'; readonly paths: readonly string[]; readonly at: readonly Position[] };
+export type CandidateSource =
+  | { readonly kind: 'part'; readonly path: string; readonly at: Position }
+  | { readonly kind: 'files'; readonly paths: readonly string[]; readonly at: readonly Position[] };
 
 export interface CandidateSpec {
   readonly label: string;
@@ -57,7 +59,11 @@ const text = (v: Plain | undefined): string | null => (typeof v === 'string' ? v
 export function loadComparisonText(text_: string, file: string): { value: NormalizedComparison | null; errors: readonly SpecError[] } {
   const { doc, lines, errors: syntax } = parseYaml(text_, file);
   if (syntax.length) return { value: null, errors: syntax };
-  if (doc.contents === null) return { value: null, errors: [{ code: 'missing-key', file, message: 'the comparison file is empty; it needs title, bands, limits and candidates', line: 0, column: 0 }] };
+  if (doc.contents === null)
+    return {
+      value: null,
+      errors: [{ code: 'missing-key', file, message: 'the comparison file is empty; it needs title, bands, limits and candidates', line: 0, column: 0 }],
+    };
   const checked = validate(doc.contents, COMPARISON_SCHEMA, file, lines, (a) => a.resolve(doc), 'the comparison file');
   const spec = isObj(checked.value) ? checked.value : {};
   const errors: SpecError[] = [...checked.errors];
@@ -73,7 +79,8 @@ export function loadComparisonText(text_: string, file: string): { value: Normal
   let referenceOhms = 50;
   if (spec.reference !== undefined) {
     const r = parseOhms(spec.reference);
-    if (r === null) err('bad-value', 'reference', `reference "${spec.reference}" is not an impedance; expected a positive number of ohms, e.g. 50 ohm, 75 Ω or 50`);
+    if (r === null)
+      err('bad-value', 'reference', `reference "${spec.reference}" is not an impedance; expected a positive number of ohms, e.g. 50 ohm, 75 Ω or 50`);
     else referenceOhms = r;
   }
 
@@ -84,22 +91,36 @@ export function loadComparisonText(text_: string, file: string): { value: Normal
       const path = `candidates.${i}`;
       if (!isObj(c) || typeof c.label !== 'string') return;
       const label = c.label.trim();
-      if (!label) err('bad-value', `${path}.label`, 'a candidate\'s label must not be empty');
-      if (labels.has(label)) err('duplicate', `${path}.label`, `the label "${label}" is used twice (candidates ${(labels.get(label) as number) + 1} and ${i + 1}); each candidate needs its own`);
+      if (!label) err('bad-value', `${path}.label`, "a candidate's label must not be empty");
+      if (labels.has(label))
+        err(
+          'duplicate',
+          `${path}.label`,
+          `the label "${label}" is used twice (candidates ${(labels.get(label) as number) + 1} and ${i + 1}); each candidate needs its own`,
+        );
       labels.set(label, i);
       const given = (['part', 'files', 'file'] as const).filter((k) => c[k] !== undefined || checked.positions.has(`${path}#${k}`));
       if (given.length !== 1) {
-        err('bad-value', given.length ? `${path}#${given[1]}` : path, given.length ? `candidate "${label}" gives ${given.join(' and ')}; give one of part (a catalog part file), files (its units' Touchstone files) or file (one)` : `candidate "${label}" has no data: give part (a catalog part file), files (its units' Touchstone files) or file (one)`);
+        err(
+          'bad-value',
+          given.length ? `${path}#${given[1]}` : path,
+          given.length
+            ? `candidate "${label}" gives ${given.join(' and ')}; give one of part (a catalog part file), files (its units' Touchstone files) or file (one)`
+            : `candidate "${label}" has no data: give part (a catalog part file), files (its units' Touchstone files) or file (one)`,
+        );
         return;
       }
       let source: CandidateSource;
       if (typeof c.part === 'string') source = { kind: 'part', path: c.part, at: at(`${path}.part`) };
       else if (typeof c.file === 'string') source = { kind: 'files', paths: [c.file], at: [at(`${path}.file`)] };
-      else if (Array.isArray(c.files) && c.files.every((f) => typeof f === 'string')) source = { kind: 'files', paths: c.files as string[], at: c.files.map((_, j) => at(`${path}.files.${j}`)) };
+      else if (Array.isArray(c.files) && c.files.every((f) => typeof f === 'string'))
+        source = { kind: 'files', paths: c.files as string[], at: c.files.map((_, j) => at(`${path}.files.${j}`)) };
       else return; // the schema check said what is wrong
       let portMap: number[] | null = null;
       if (isObj(c.ports)) {
-        const entries = Object.entries(c.ports).map(([k, v]) => [Number(k), v] as const).sort((a, b) => a[0] - b[0]);
+        const entries = Object.entries(c.ports)
+          .map(([k, v]) => [Number(k), v] as const)
+          .sort((a, b) => a[0] - b[0]);
         const ours = entries.map(([k]) => k);
         const missing = ours.length ? Array.from({ length: ours[ours.length - 1] }, (_, k) => k + 1).filter((k) => !ours.includes(k)) : [];
         const theirs = new Map<number, number>();
@@ -109,7 +130,11 @@ export function loadComparisonText(text_: string, file: string): { value: Normal
         }
         if (missing.length) {
           ok = false;
-          err('bad-value', `${path}.ports`, `the port map of "${label}" skips our port${missing.length > 1 ? 's' : ''} ${missing.join(', ')}; our ports are numbered 1 to ${ours[ours.length - 1]} without gaps`);
+          err(
+            'bad-value',
+            `${path}.ports`,
+            `the port map of "${label}" skips our port${missing.length > 1 ? 's' : ''} ${missing.join(', ')}; our ports are numbered 1 to ${ours[ours.length - 1]} without gaps`,
+          );
         }
         for (const [k, v] of entries) {
           if (typeof v !== 'number') {
@@ -118,13 +143,21 @@ export function loadComparisonText(text_: string, file: string): { value: Normal
           }
           if (theirs.has(v)) {
             ok = false;
-            err('bad-value', `${path}.ports.${k}`, `the port map of "${label}" maps our ports ${theirs.get(v)} and ${k} to the same port ${v} of the file; each of our ports needs a port of its own`);
+            err(
+              'bad-value',
+              `${path}.ports.${k}`,
+              `the port map of "${label}" maps our ports ${theirs.get(v)} and ${k} to the same port ${v} of the file; each of our ports needs a port of its own`,
+            );
           }
           theirs.set(v, k);
         }
         if (source.kind === 'part') {
           ok = false;
-          err('bad-value', `${path}#ports`, `candidate "${label}" is a catalog part: its ports are numbered by its part file; a port map belongs to files from elsewhere`);
+          err(
+            'bad-value',
+            `${path}#ports`,
+            `candidate "${label}" is a catalog part: its ports are numbered by its part file; a port map belongs to files from elsewhere`,
+          );
         }
         if (ok) portMap = entries.map(([, v]) => v as number);
       }
@@ -135,7 +168,12 @@ export function loadComparisonText(text_: string, file: string): { value: Normal
   let baseline: string | null = null;
   if (typeof spec.baseline === 'string') {
     if (labels.has(spec.baseline)) baseline = spec.baseline;
-    else err('bad-value', 'baseline', `baseline "${spec.baseline}" is not the label of a candidate; the candidates are ${[...labels.keys()].map((l) => `"${l}"`).join(', ') || 'none'}`);
+    else
+      err(
+        'bad-value',
+        'baseline',
+        `baseline "${spec.baseline}" is not the label of a candidate; the candidates are ${[...labels.keys()].map((l) => `"${l}"`).join(', ') || 'none'}`,
+      );
   }
 
   errors.sort((a, b) => a.line - b.line || a.column - b.column);

@@ -4,7 +4,11 @@ import type { CompiledExpression, ExpressionCompiler } from '../figures/expressi
 import type { FigureDef, FigureUnit } from '../figures/types.js';
 import { isObj, type Context, type Obj } from './context.js';
 
-export function normalizeCustomFigures(spec: Obj, compile: ExpressionCompiler | undefined, { err }: Context): { custom: Map<string, FigureDef>; brokenCustom: Set<string>; needsCompiler: boolean } {
+export function normalizeCustomFigures(
+  spec: Obj,
+  compile: ExpressionCompiler | undefined,
+  { err }: Context,
+): { custom: Map<string, FigureDef>; brokenCustom: Set<string>; needsCompiler: boolean } {
   let needsCompiler = false;
   const custom = new Map<string, FigureDef>();
   const brokenCustom = new Set<string>();

@@ -43,8 +43,6 @@ export interface SpecError extends Position {
   readonly message: string;
 }
 
-export const NOWHERE: Position = { line: 0, column: 0 };
-
 /**
  * Warnings: the part evaluated, but a figure or a file says something the
  * reader of a datasheet must know (a negative excess loss on a passive part,
@@ -59,7 +57,8 @@ export interface SpecWarning extends Position {
 }
 
 /** `FILE:LINE:COL`, `FILE:LINE`, or `FILE` alone for what concerns a whole file (line 0). */
-export const whereOf = (e: { readonly file: string; readonly line: number; readonly column: number }): string => (e.line > 0 ? `${e.file}:${e.line}${e.column ? `:${e.column}` : ''}` : e.file);
+export const whereOf = (e: { readonly file: string; readonly line: number; readonly column: number }): string =>
+  e.line > 0 ? `${e.file}:${e.line}${e.column ? `:${e.column}` : ''}` : e.file;
 
 /** `FILE:LINE:COL: error: message` (or `warning:`), then the source line and a caret under the fault when the text is known. */
 export function formatSpecError(e: SpecError | SpecWarning, source?: string, severity: 'error' | 'warning' = 'error'): string {

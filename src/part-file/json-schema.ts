@@ -11,7 +11,12 @@ export function partJsonSchema(): object {
 }
 
 export function comparisonJsonSchema(): object {
-  return { $schema: 'https://json-schema.org/draft/2020-12/schema', $id: COMPARISON_SCHEMA_ID, title: 'scatterbook comparison file', ...toJsonSchema(COMPARISON_SCHEMA) };
+  return {
+    $schema: 'https://json-schema.org/draft/2020-12/schema',
+    $id: COMPARISON_SCHEMA_ID,
+    title: 'scatterbook comparison file',
+    ...toJsonSchema(COMPARISON_SCHEMA),
+  };
 }
 
 export function partJsonSchemaText(): string {

@@ -18,14 +18,14 @@ export interface LoadResult {
   readonly needsCompiler?: true;
 }
 
-
 /** YAML 1.2 text → its document and line index, or the syntax errors (each positioned). */
 export function parseYaml(text: string, file: string): { doc: Document.Parsed; lines: LineCounter; errors: SpecError[] } {
   const lines = new LineCounter();
   const doc = parseDocument(text, { version: '1.2', lineCounter: lines, prettyErrors: false, uniqueKeys: true });
   const errors = doc.errors.map((e): SpecError => {
     const p = e.linePos?.[0] ?? lines.linePos(e.pos[0]);
-    const message = e.code === 'DUPLICATE_KEY' ? 'a key is given twice in the same mapping; give each key once' : `YAML syntax: ${e.message.split(' at line')[0]}`;
+    const message =
+      e.code === 'DUPLICATE_KEY' ? 'a key is given twice in the same mapping; give each key once' : `YAML syntax: ${e.message.split(' at line')[0]}`;
     return { code: 'yaml-syntax', file, message, line: p.line, column: p.col };
   });
   return { doc, lines, errors };
@@ -35,7 +35,10 @@ export function loadPartText(text: string, file: string, compile?: ExpressionCom
   const { doc, lines, errors: syntax } = parseYaml(text, file);
   if (syntax.length) return { value: null, errors: syntax };
   if (doc.contents === null) {
-    return { value: null, errors: [{ code: 'missing-key', file, message: 'the part file is empty; it needs at least part, class and measurements', line: 0, column: 0 }] };
+    return {
+      value: null,
+      errors: [{ code: 'missing-key', file, message: 'the part file is empty; it needs at least part, class and measurements', line: 0, column: 0 }],
+    };
   }
   const checked = validate(doc.contents, PART_SCHEMA, file, lines, (a) => a.resolve(doc));
   const normalized = normalizePart({ file, value: checked.value, positions: checked.positions, compile });

@@ -13,9 +13,27 @@ export function normalizeMeasurements(spec: Obj, { err, at }: Context): { measur
       const conditions: Record<string, string> = {};
       if (isObj(m.conditions)) for (const [k, v] of Object.entries(m.conditions)) conditions[k] = conditionText(v);
       const key = `${unit}\u0000${JSON.stringify(Object.entries(conditions).sort())}`;
-      if (seen.has(key)) err('duplicate', `measurements.${i}.unit`, `unit ${unit} is listed twice under the same conditions (entries ${(seen.get(key) as number) + 1} and ${i + 1}); list each measurement once`);
+      if (seen.has(key))
+        err(
+          'duplicate',
+          `measurements.${i}.unit`,
+          `unit ${unit} is listed twice under the same conditions (entries ${(seen.get(key) as number) + 1} and ${i + 1}); list each measurement once`,
+        );
       seen.set(key, i);
-      measurements.push({ unit, label: unit, file: m.file, conditions, notes: str(m.notes), instrument: str(m.instrument), calibration: str(m.calibration), date: str(m.date), operator: str(m.operator), lot: str(m.lot), at: at(`measurements.${i}`), fileAt: at(`measurements.${i}.file`) });
+      measurements.push({
+        unit,
+        label: unit,
+        file: m.file,
+        conditions,
+        notes: str(m.notes),
+        instrument: str(m.instrument),
+        calibration: str(m.calibration),
+        date: str(m.date),
+        operator: str(m.operator),
+        lot: str(m.lot),
+        at: at(`measurements.${i}`),
+        fileAt: at(`measurements.${i}.file`),
+      });
     });
   }
   // where a serial repeats, results name the measurement by serial and conditions: "SN3001 @ 85 °C"
@@ -33,7 +51,13 @@ export function normalizeMeasurements(spec: Obj, { err, at }: Context): { measur
     for (const [k, v] of Object.entries(spec['typical-at'])) typicalAt[k] = conditionText(v);
     const wanted = typicalAt;
     if (!measurements.some((m) => Object.entries(wanted).every(([k, v]) => m.conditions[k] === v))) {
-      err('unknown-condition', 'typical-at', `no measured unit has the conditions of typical-at (${Object.entries(wanted).map(([k, v]) => `${k}: ${v}`).join(', ')}); typical values must come from measured units`);
+      err(
+        'unknown-condition',
+        'typical-at',
+        `no measured unit has the conditions of typical-at (${Object.entries(wanted)
+          .map(([k, v]) => `${k}: ${v}`)
+          .join(', ')}); typical values must come from measured units`,
+      );
     }
   }
 

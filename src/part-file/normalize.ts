@@ -11,7 +11,6 @@ import type { ExpressionCompiler } from '../figures/expression.js';
 import type { FigureDef, Item } from '../figures/types.js';
 import { nearest } from '../format/suggest.js';
 import type { Position, SpecError } from './diagnostics.js';
-import type { SParameter } from './parameter.js';
 import type { Assurance, PartClass } from './part-schema.js';
 import { parseQuantity } from './quantity.js';
 import type { Plain } from './validate.js';
@@ -20,9 +19,6 @@ import { normalizeCheck, type CheckScope } from './checks.js';
 import { contextOf, isObj, str } from './context.js';
 import { normalizeCustomFigures } from './custom-figures.js';
 import { normalizeMeasurements } from './measurements.js';
-
-export { conditionText } from './context.js';
-export type { CustomFigureDef } from './custom-figures.js';
 
 export interface NormalizedBand {
   readonly name: string;
@@ -160,10 +156,12 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
   const phaseSplitDeg = split && split.ok ? split.value : null;
   const partCtx = { partClass, ways, phaseSplitDeg };
   const mm = spec['mixed-mode'];
-  const mixedModePairs = isObj(mm) && Array.isArray(mm.pairs) ? (mm.pairs.filter((p) => Array.isArray(p) && p.length === 2) as unknown as Array<[number, number]>) : null;
+  const mixedModePairs =
+    isObj(mm) && Array.isArray(mm.pairs) ? (mm.pairs.filter((p) => Array.isArray(p) && p.length === 2) as unknown as Array<[number, number]>) : null;
   if (mixedModePairs) {
     const used = mixedModePairs.flat();
-    if (new Set(used).size !== used.length) err('bad-value', 'mixed-mode.pairs', 'a port appears in two mixed-mode pairs; each single-ended port belongs to one pair');
+    if (new Set(used).size !== used.length)
+      err('bad-value', 'mixed-mode.pairs', 'a port appears in two mixed-mode pairs; each single-ended port belongs to one pair');
   }
 
   const { measurements, typicalAt } = normalizeMeasurements(spec, ctx);
@@ -181,7 +179,6 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
       if (c) checks.push(c);
     });
   }
-
 
   const portNames: Record<number, string> = {};
   const portNamesAt: Record<number, Position> = {};
@@ -201,7 +198,11 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
     operatingBand = bands.get(name) ?? null;
     if (!operatingBand && !brokenBands.has(name)) {
       const near = nearest(name, bands.keys());
-      err('unknown-band', 'operating-band', `operating-band "${name}" is not a band of this part${near ? `; did you mean "${near}"?` : bands.size ? `; the bands are ${[...bands.keys()].join(', ')}` : '; define it under bands:'}`);
+      err(
+        'unknown-band',
+        'operating-band',
+        `operating-band "${name}" is not a band of this part${near ? `; did you mean "${near}"?` : bands.size ? `; the bands are ${[...bands.keys()].join(', ')}` : '; define it under bands:'}`,
+      );
     }
   }
   const plainText = (v: Plain | undefined) => (v === undefined || v === null ? null : String(v));
@@ -236,13 +237,21 @@ export function normalizePart(input: NormalizeInput): { value: NormalizedPart | 
     weight: str(spec.weight),
     outline: str(spec.outline),
     outlineAt: at('outline'),
-    ordering: Array.isArray(spec.ordering) ? spec.ordering.filter(isObj).map((o) => ({ code: String(o.code ?? ''), description: String(o.description ?? '') })) : [],
+    ordering: Array.isArray(spec.ordering)
+      ? spec.ordering.filter(isObj).map((o) => ({ code: String(o.code ?? ''), description: String(o.description ?? '') }))
+      : [],
     declared: Array.isArray(spec.declared)
-      ? spec.declared.filter(isObj).map((d) => ({ parameter: String(d.parameter ?? ''), min: plainText(d.min), typ: plainText(d.typ), max: plainText(d.max), unit: String(d.unit ?? ''), conditions: str(d.conditions) }))
+      ? spec.declared.filter(isObj).map((d) => ({
+          parameter: String(d.parameter ?? ''),
+          min: plainText(d.min),
+          typ: plainText(d.typ),
+          max: plainText(d.max),
+          unit: String(d.unit ?? ''),
+          conditions: str(d.conditions),
+        }))
       : [],
     spec,
   };
   if (needsCompiler) return { value: null, errors: [], needsCompiler };
   return { value: errors.length ? null : value, errors };
 }
-

@@ -20,19 +20,22 @@ export function parseParameter(text: string): ParameterResult {
   const t = text.trim();
   const mm = /^S([dc])([dc])(\d)(\d)$/i.exec(t) ?? /^S([dc])([dc])(\d+),(\d+)$/i.exec(t);
   if (mm) {
-    const to = Number(mm[3]), from = Number(mm[4]);
+    const to = Number(mm[3]),
+      from = Number(mm[4]);
     if (to < 1 || from < 1) return { ok: false, message: `"${text}": ports are numbered from 1` };
     return { ok: true, value: { to, from, mode: `${mm[1].toLowerCase()}${mm[2].toLowerCase()}` as SParameter['mode'] } };
   }
   let m = /^S(\d)(\d)$/i.exec(t);
   if (!m) m = /^S(\d+),(\d+)$/i.exec(t);
   if (m) {
-    const to = Number(m[1]), from = Number(m[2]);
+    const to = Number(m[1]),
+      from = Number(m[2]);
     if (to >= 1 && from >= 1) return { ok: true, value: { to, from } };
     return { ok: false, message: `"${text}": ports are numbered from 1` };
   }
   if (/^S\(\s*\d+\s*,\s*\d+\s*\)$/i.test(t)) return { ok: false, message: `"${text}": write S-parameters without brackets, e.g. S10,12 or S21` };
-  if (/^S\d{3,}$/i.test(t)) return { ok: false, message: `"${text}" is ambiguous: for ports above 9 put a comma between the two port numbers (S10,2 or S1,02)` };
+  if (/^S\d{3,}$/i.test(t))
+    return { ok: false, message: `"${text}" is ambiguous: for ports above 9 put a comma between the two port numbers (S10,2 or S1,02)` };
   return { ok: false, message: `"${text}" is not an S-parameter; expected S<to><from> such as S21 (into port 2 from port 1), or S10,12 for ports above 9` };
 }
 

@@ -4,7 +4,7 @@
  * documentation's key list is checked against it.
  */
 import { CLASSES } from '../classes/registry.js';
-import { NAME_PATTERN, type Field, type Schema } from './schema-dsl.js';
+import type { Field, Schema } from './schema-dsl.js';
 
 /** Ranges of the part file's numbers (documented in the README and carried into the JSON Schema). */
 export const MAX_PORT = 999;
@@ -14,7 +14,7 @@ export const MAX_LEVEL_DB = 60;
 export const ASSURANCES = ['every-unit', 'sample', 'design'] as const;
 export type Assurance = (typeof ASSURANCES)[number];
 
-export { CLASSES, type PartClass } from '../classes/registry.js';
+export type { PartClass } from '../classes/registry.js';
 
 const str = (description: string, extra: Partial<Extract<Schema, { t: 'string' }>> = {}): Schema => ({ t: 'string', description, ...extra });
 const text = (description: string): Schema => ({ t: 'text', description });
@@ -22,7 +22,7 @@ const conditions: Schema = {
   t: 'map',
   keys: 'name',
   description: 'Measurement conditions by name, e.g. temperature: 25 °C; units with equal conditions form a group',
-  value: { t: 'scalar', description: 'the condition\'s value as written (compared as text)' },
+  value: { t: 'scalar', description: "the condition's value as written (compared as text)" },
 };
 
 /** Fields shared by limits and reported figures. */
@@ -34,37 +34,56 @@ const figureFields: Record<string, Field> = {
     items: str('an S-parameter name such as S21 or S10,12'),
   },
   band: { ...str('the band (a key of bands) the figure is evaluated over'), required: true },
-  ports: { t: 'array', minItems: 2, maxItems: 2, items: { t: 'integer', min: 1, max: MAX_PORT, description: 'a port number' }, description: 'stability figures: the input and output port (default [1, 2])' },
-  aperture: { t: 'integer', min: 1, max: MAX_APERTURE, description: `group delay: difference over ±N measured points, 1 to ${MAX_APERTURE} (default 1, plain central differences)` },
-  level: { t: 'quantity', kinds: ['dB'], description: `bandwidth and centre frequency: how far below the best insertion loss the band edges sit, above 0 and at most ${MAX_LEVEL_DB} dB (default 3 dB)` },
+  ports: {
+    t: 'array',
+    minItems: 2,
+    maxItems: 2,
+    items: { t: 'integer', min: 1, max: MAX_PORT, description: 'a port number' },
+    description: 'stability figures: the input and output port (default [1, 2])',
+  },
+  aperture: {
+    t: 'integer',
+    min: 1,
+    max: MAX_APERTURE,
+    description: `group delay: difference over ±N measured points, 1 to ${MAX_APERTURE} (default 1, plain central differences)`,
+  },
+  level: {
+    t: 'quantity',
+    kinds: ['dB'],
+    description: `bandwidth and centre frequency: how far below the best insertion loss the band edges sit, above 0 and at most ${MAX_LEVEL_DB} dB (default 3 dB)`,
+  },
   when: { ...conditions, description: 'only the units measured under these conditions, e.g. {temperature: 85 °C}' },
   label: str('a name for this row of the tables, replacing the figure name'),
 };
 
 export const limitFields: Record<string, Field> = {
   ...figureFields,
-  max: { t: 'quantity', description: 'the largest value allowed (with the figure\'s unit)' },
+  max: { t: 'quantity', description: "the largest value allowed (with the figure's unit)" },
   min: { t: 'quantity', description: 'the smallest value allowed' },
   nominal: { t: 'quantity', description: 'the intended value; with tolerance, the allowed window is nominal ± tolerance' },
-  tolerance: { t: 'quantity', description: 'half the width of the allowed window around nominal (nominal defaults to the figure\'s own: 0 for balances)' },
+  tolerance: { t: 'quantity', description: "half the width of the allowed window around nominal (nominal defaults to the figure's own: 0 for balances)" },
   change: {
     t: 'object',
-    description: 'qualification: the limit bounds the change of the figure per unit between two stages (the value at `to` minus the value at `from`, point by point), e.g. {from: {stage: initial}, to: {stage: after thermal cycling}}; a unit matches a stage by its serial and conditions',
+    description:
+      'qualification: the limit bounds the change of the figure per unit between two stages (the value at `to` minus the value at `from`, point by point), e.g. {from: {stage: initial}, to: {stage: after thermal cycling}}; a unit matches a stage by its serial and conditions',
     fields: {
       from: { ...conditions, description: 'the conditions of the earlier stage, e.g. {stage: initial}', required: true },
       to: { ...conditions, description: 'the conditions of the later stage, e.g. {stage: after thermal cycling}', required: true },
     },
   },
-  'assured-by': str('how the vendor assures the limit for parts it ships: every-unit (each unit is tested against it), sample (characterised on a sample, not tested on every unit) or design (by design, not tested); without it the limit is checked on the listed units only', { enum: ASSURANCES }),
+  'assured-by': str(
+    'how the vendor assures the limit for parts it ships: every-unit (each unit is tested against it), sample (characterised on a sample, not tested on every unit) or design (by design, not tested); without it the limit is checked on the listed units only',
+    { enum: ASSURANCES },
+  ),
 };
 
 function plotFields(): Record<string, Field> {
   return {
     figure: { ...str('the figure drawn (a trace figure: a value at every point)'), required: true },
-    on: { t: 'oneOrMany', description: 'the S-parameters drawn (default: those of the figure\'s limits)', items: str('an S-parameter name') },
+    on: { t: 'oneOrMany', description: "the S-parameters drawn (default: those of the figure's limits)", items: str('an S-parameter name') },
     band: str('draw only this band (default: the whole measured range)'),
-    range: str('all: the whole measured range; limits: around the bands of the figure\'s limits', { enum: ['all', 'limits'] }),
-    title: str('the plot\'s title'),
+    range: str("all: the whole measured range; limits: around the bands of the figure's limits", { enum: ['all', 'limits'] }),
+    title: str("the plot's title"),
   };
 }
 
@@ -91,25 +110,42 @@ export const PART_SCHEMA: Schema = {
     title: str('a one-line title, e.g. Bandpass filter, 2.40–2.50 GHz'),
     class: { ...str('the component class', { enum: CLASSES }), required: true },
     revision: text('the revision of this datasheet'),
-    date: str('the date of this revision, YYYY-MM-DD (a real calendar date)', { pattern: '^\\d{4}-\\d{2}-\\d{2}$', patternHint: 'YYYY-MM-DD, e.g. 2026-11-20', format: 'date' }),
-    vendor: str('the vendor, when it differs from the catalog\'s'),
+    date: str('the date of this revision, YYYY-MM-DD (a real calendar date)', {
+      pattern: '^\\d{4}-\\d{2}-\\d{2}$',
+      patternHint: 'YYYY-MM-DD, e.g. 2026-11-20',
+      format: 'date',
+    }),
+    vendor: str("the vendor, when it differs from the catalog's"),
     description: str('a paragraph describing the part'),
     notes: str('notes for the datasheet, in Markdown (raw HTML is not rendered)'),
     package: str('package or housing'),
     connector: str('RF connectors'),
     'operating-temperature': str('operating temperature range, e.g. −40 to +85 °C'),
-    'operating-band': str('the band (a key of bands) the part is specified for, shown as its headline (default: the band of the class\'s main transmission limit, e.g. a filter\'s insertion-loss passband)'),
-    features: { t: 'array', items: str('a feature in a few words'), description: 'the features line of the datasheet, e.g. [Low insertion loss, SMA connectors]' },
+    'operating-band': str(
+      "the band (a key of bands) the part is specified for, shown as its headline (default: the band of the class's main transmission limit, e.g. a filter's insertion-loss passband)",
+    ),
+    features: {
+      t: 'array',
+      items: str('a feature in a few words'),
+      description: 'the features line of the datasheet, e.g. [Low insertion loss, SMA connectors]',
+    },
     weight: str('the weight, e.g. 12 g'),
-    outline: str('an outline drawing: an image file in the content folder\'s assets/, written relative to the content folder (e.g. assets/vt-bpf-2450-outline.svg)'),
+    outline: str(
+      "an outline drawing: an image file in the content folder's assets/, written relative to the content folder (e.g. assets/vt-bpf-2450-outline.svg)",
+    ),
     ordering: {
       t: 'array',
       description: 'ordering information: one entry per orderable variant',
-      items: { t: 'object', description: 'an orderable variant', fields: { code: { ...text('the ordering code'), required: true }, description: { ...str('what the variant is'), required: true } } },
+      items: {
+        t: 'object',
+        description: 'an orderable variant',
+        fields: { code: { ...text('the ordering code'), required: true }, description: { ...str('what the variant is'), required: true } },
+      },
     },
     declared: {
       t: 'array',
-      description: 'specifications no Touchstone file carries (P1dB, OIP3, supply current, power handling, switching time …), shown in the specification table marked as declared by the vendor',
+      description:
+        'specifications no Touchstone file carries (P1dB, OIP3, supply current, power handling, switching time …), shown in the specification table marked as declared by the vendor',
       items: {
         t: 'object',
         description: 'a declared specification',
@@ -123,9 +159,18 @@ export const PART_SCHEMA: Schema = {
         },
       },
     },
-    ports: { t: 'map', keys: 'integer', value: str('the port\'s name'), description: 'port number → name (default "Port n"); every number must be a port of the measured files' },
+    ports: {
+      t: 'map',
+      keys: 'integer',
+      value: str("the port's name"),
+      description: 'port number → name (default "Port n"); every number must be a port of the measured files',
+    },
     ways: { t: 'integer', min: 2, max: MAX_PORT, description: 'dividers: the number of outputs N for excess loss (default: ports − 1)' },
-    'phase-split': { t: 'quantity', kinds: ['deg'], description: 'hybrids and baluns: the intended phase difference between outputs (default 90 deg for a hybrid, 180 deg for a balun)' },
+    'phase-split': {
+      t: 'quantity',
+      kinds: ['deg'],
+      description: 'hybrids and baluns: the intended phase difference between outputs (default 90 deg for a hybrid, 180 deg for a balun)',
+    },
     'mixed-mode': {
       t: 'object',
       description: 'how single-ended ports pair into mixed-mode ports, for parameters such as Sdd21',
@@ -139,7 +184,11 @@ export const PART_SCHEMA: Schema = {
         },
       },
     },
-    'typical-at': { ...conditions, description: 'the conditions typical values are quoted at, e.g. {temperature: 25 °C}: typical comes from the units measured there, limits still from every unit they cover' },
+    'typical-at': {
+      ...conditions,
+      description:
+        'the conditions typical values are quoted at, e.g. {temperature: 25 °C}: typical comes from the units measured there, limits still from every unit they cover',
+    },
     measurements: {
       t: 'array',
       minItems: 1,
@@ -148,37 +197,58 @@ export const PART_SCHEMA: Schema = {
         t: 'object',
         description: 'a measured unit',
         fields: {
-          unit: { ...text('the unit\'s serial number'), required: true },
+          unit: { ...text("the unit's serial number"), required: true },
           file: { ...str('its Touchstone file, relative to this part file; never outside the content folder'), required: true },
           conditions,
           notes: str('a note on this measurement'),
           instrument: str('the network analyser (and test set) it was measured on'),
           calibration: str('the calibration: method, kit, date'),
-          date: str('the date of the measurement, YYYY-MM-DD (a real calendar date)', { pattern: '^\\d{4}-\\d{2}-\\d{2}$', patternHint: 'YYYY-MM-DD', format: 'date' }),
+          date: str('the date of the measurement, YYYY-MM-DD (a real calendar date)', {
+            pattern: '^\\d{4}-\\d{2}-\\d{2}$',
+            patternHint: 'YYYY-MM-DD',
+            format: 'date',
+          }),
           operator: str('who measured it'),
           lot: text('the production lot the unit comes from (lot statistics are grouped by it)'),
         },
       },
     },
     bands: BANDS,
-    limits: { t: 'array', items: { t: 'object', fields: limitFields, description: 'a figure over a band and the limit it must meet' }, description: 'the limits the datasheet promises, in the order of its compliance table' },
-    report: { t: 'array', items: { t: 'object', fields: figureFields, description: 'a figure to report without a limit' }, description: 'figures reported without a limit (their worst follows the figure\'s bad direction)' },
+    limits: {
+      t: 'array',
+      items: { t: 'object', fields: limitFields, description: 'a figure over a band and the limit it must meet' },
+      description: 'the limits the datasheet promises, in the order of its compliance table',
+    },
+    report: {
+      t: 'array',
+      items: { t: 'object', fields: figureFields, description: 'a figure to report without a limit' },
+      description: "figures reported without a limit (their worst follows the figure's bad direction)",
+    },
     'custom-figures': {
       t: 'map',
       keys: 'name',
-      description: 'figures of this part\'s own, as expressions over whole traces',
+      description: "figures of this part's own, as expressions over whole traces",
       value: {
         t: 'object',
         description: 'a custom figure',
         fields: {
-          expression: { ...str('e.g. db(S31) - db(S41); functions: db, loss_db, magnitude, phase_deg, unwrapped_phase_deg, group_delay, vswr, real_part, imag_part, and mathjs arithmetic'), required: true },
+          expression: {
+            ...str(
+              'e.g. db(S31) - db(S41); functions: db, loss_db, magnitude, phase_deg, unwrapped_phase_deg, group_delay, vswr, real_part, imag_part, and mathjs arithmetic',
+            ),
+            required: true,
+          },
           unit: { ...str('the unit of the result', { enum: ['dB', 'deg', 's', ''] }), required: true },
           worse: { ...str('which way is worse when there is no limit', { enum: ['higher', 'lower'] }), required: true },
           title: str('a human name for tables and plots'),
         },
       },
     },
-    plots: { t: 'array', items: { t: 'object', fields: plotFields(), description: 'a plot' }, description: 'the plots of the datasheet, replacing the class defaults' },
+    plots: {
+      t: 'array',
+      items: { t: 'object', fields: plotFields(), description: 'a plot' },
+      description: 'the plots of the datasheet, replacing the class defaults',
+    },
     'extra-plots': { t: 'array', items: { t: 'object', fields: plotFields(), description: 'a plot' }, description: 'plots added after the class defaults' },
     ratings: {
       t: 'array',
@@ -186,11 +256,13 @@ export const PART_SCHEMA: Schema = {
       items: {
         t: 'object',
         description: 'one rating',
-        fields: { parameter: { ...str('e.g. RF input power, CW'), required: true }, value: { ...text('e.g. +30 dBm'), required: true }, notes: str('conditions of the rating') },
+        fields: {
+          parameter: { ...str('e.g. RF input power, CW'), required: true },
+          value: { ...text('e.g. +30 dBm'), required: true },
+          notes: str('conditions of the rating'),
+        },
       },
     },
     cautions: { t: 'array', items: str('a caution in plain words'), description: 'cautions for handling and use, printed with the class defaults' },
   },
 };
-
-export { NAME_PATTERN };

@@ -24,7 +24,7 @@ const UNITS: Record<string, UnitInfo> = {
   s: { kind: 'time', exp: 0 },
   ms: { kind: 'time', exp: -3 },
   us: { kind: 'time', exp: -6 },
-  'µs': { kind: 'time', exp: -6 },
+  µs: { kind: 'time', exp: -6 },
   ns: { kind: 'time', exp: -9 },
   ps: { kind: 'time', exp: -12 },
 };
@@ -39,8 +39,6 @@ export const KIND_NAMES: Record<QuantityKind, string> = {
   unitless: 'a plain number (no unit)',
 };
 
-export const UNIT_OF_KIND: Record<QuantityKind, string> = { frequency: 'Hz', dB: 'dB', deg: 'deg', time: 's', unitless: '' };
-
 export type QuantityResult =
   | { readonly ok: true; readonly value: number; readonly kind: QuantityKind; readonly unit: string }
   | { readonly ok: false; readonly problem: 'not-a-quantity' | 'unknown-unit'; readonly message: string };
@@ -50,7 +48,9 @@ const NUMBER = /^([+\-−]?(?:\d+\.?\d*|\.\d+))(?:[eE]([+\-]?\d+))?\s*(.*)$/;
 /** Parses a number with an optional unit; a bare number is unitless. */
 export function parseQuantity(input: string | number): QuantityResult {
   if (typeof input === 'number') {
-    return Number.isFinite(input) ? { ok: true, value: input, kind: 'unitless', unit: '' } : { ok: false, problem: 'not-a-quantity', message: `${input} is not a finite number` };
+    return Number.isFinite(input)
+      ? { ok: true, value: input, kind: 'unitless', unit: '' }
+      : { ok: false, problem: 'not-a-quantity', message: `${input} is not a finite number` };
   }
   const text = input.trim();
   const m = NUMBER.exec(text);
@@ -62,7 +62,11 @@ export function parseQuantity(input: string | number): QuantityResult {
   const unit = UNITS[unitText] ? unitText : CASE_FOLD[unitText.toLowerCase()];
   const info = unit ? UNITS[unit] : undefined;
   if (!info) {
-    return { ok: false, problem: 'unknown-unit', message: `unknown unit "${unitText}" in "${input}"; expected one of Hz, kHz, MHz, GHz, dB, deg, s, ms, us, ns, ps` };
+    return {
+      ok: false,
+      problem: 'unknown-unit',
+      message: `unknown unit "${unitText}" in "${input}"; expected one of Hz, kHz, MHz, GHz, dB, deg, s, ms, us, ns, ps`,
+    };
   }
   // the unit's power of ten joins the exponent, so "4.78 ns" is exactly the double nearest 4.78e-9
   return finite(Number(`${mantissa}e${exponent + info.exp}`), info.kind, unit as string, input);

@@ -31,7 +31,13 @@ export function toJsonSchema(s: Schema): Json {
   const d = { description: s.description };
   switch (s.t) {
     case 'string':
-      return { ...d, type: 'string', ...(s.enum ? { enum: [...s.enum] } : {}), ...(s.pattern ? { pattern: s.pattern } : {}), ...(s.format ? { format: s.format } : {}) };
+      return {
+        ...d,
+        type: 'string',
+        ...(s.enum ? { enum: [...s.enum] } : {}),
+        ...(s.pattern ? { pattern: s.pattern } : {}),
+        ...(s.format ? { format: s.format } : {}),
+      };
     case 'text':
       return { ...d, type: ['string', 'number', 'boolean'] };
     case 'integer':
@@ -47,7 +53,9 @@ export function toJsonSchema(s: Schema): Json {
     case 'boolean':
       return { ...d, type: 'boolean' };
     case 'object': {
-      const required = Object.entries(s.fields).filter(([, f]) => f.required).map(([k]) => k);
+      const required = Object.entries(s.fields)
+        .filter(([, f]) => f.required)
+        .map(([k]) => k);
       return {
         ...d,
         type: 'object',
@@ -57,9 +65,20 @@ export function toJsonSchema(s: Schema): Json {
       };
     }
     case 'map':
-      return { ...d, type: 'object', propertyNames: { pattern: s.keys === 'integer' ? '^[1-9][0-9]*$' : NAME_PATTERN }, additionalProperties: toJsonSchema(s.value) };
+      return {
+        ...d,
+        type: 'object',
+        propertyNames: { pattern: s.keys === 'integer' ? '^[1-9][0-9]*$' : NAME_PATTERN },
+        additionalProperties: toJsonSchema(s.value),
+      };
     case 'array':
-      return { ...d, type: 'array', items: toJsonSchema(s.items), ...(s.minItems ? { minItems: s.minItems } : {}), ...(s.maxItems ? { maxItems: s.maxItems } : {}) };
+      return {
+        ...d,
+        type: 'array',
+        items: toJsonSchema(s.items),
+        ...(s.minItems ? { minItems: s.minItems } : {}),
+        ...(s.maxItems ? { maxItems: s.maxItems } : {}),
+      };
     case 'oneOrMany': {
       const item = toJsonSchema(s.items);
       return { ...d, oneOf: [item, { type: 'array', items: item, minItems: 1 }] };
@@ -77,5 +96,10 @@ const UNIT_SPELLINGS: Record<QuantityKind, string> = {
 
 function unitPattern(kinds?: readonly QuantityKind[]): string {
   const ks = kinds ?? (Object.keys(UNIT_SPELLINGS) as QuantityKind[]);
-  return ks.map((k) => UNIT_SPELLINGS[k]).filter(Boolean).join('|') + (ks.includes('unitless') ? '|' : '');
+  return (
+    ks
+      .map((k) => UNIT_SPELLINGS[k])
+      .filter(Boolean)
+      .join('|') + (ks.includes('unitless') ? '|' : '')
+  );
 }

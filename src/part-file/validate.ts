@@ -55,7 +55,14 @@ const describe = (s: Schema): string => {
   }
 };
 
-export function validate(root: Node | null, schema: Schema, file: string, lines: LineCounter, resolveAlias?: (alias: Alias) => Node | undefined, rootLabel = 'the part file'): Validated {
+export function validate(
+  root: Node | null,
+  schema: Schema,
+  file: string,
+  lines: LineCounter,
+  resolveAlias?: (alias: Alias) => Node | undefined,
+  rootLabel = 'the part file',
+): Validated {
   const errors: SpecError[] = [];
   const positions = new Map<string, Position>();
   const posOf = (node: Node | null | undefined): Position => {
@@ -72,7 +79,8 @@ export function validate(root: Node | null, schema: Schema, file: string, lines:
     if (node && isAlias(node)) {
       // an alias stands for its anchored node; each use is walked again, so uses are counted against expansion bombs
       if (++aliases > MAX_ALIASES) {
-        if (aliases === MAX_ALIASES + 1) err('bad-value', node, `more than ${MAX_ALIASES} alias uses (*name); a part file needs few, and this many is how a file expands without bound`);
+        if (aliases === MAX_ALIASES + 1)
+          err('bad-value', node, `more than ${MAX_ALIASES} alias uses (*name); a part file needs few, and this many is how a file expands without bound`);
         return undefined;
       }
       const target = resolveAlias ? resolveAlias(node) : undefined;
@@ -84,7 +92,11 @@ export function validate(root: Node | null, schema: Schema, file: string, lines:
     }
     positions.set(path, posOf(written));
     const wrong = () => {
-      err('wrong-type', node, `${label} must be ${describe(s)}${node && isScalar(node) ? `, not ${JSON.stringify(node.value)}` : node && isSeq(node) ? ', not a list' : node && isMap(node) ? ', not a mapping' : ''}`);
+      err(
+        'wrong-type',
+        node,
+        `${label} must be ${describe(s)}${node && isScalar(node) ? `, not ${JSON.stringify(node.value)}` : node && isSeq(node) ? ', not a list' : node && isMap(node) ? ', not a mapping' : ''}`,
+      );
       return undefined;
     };
     switch (s.t) {
@@ -101,7 +113,11 @@ export function validate(root: Node | null, schema: Schema, file: string, lines:
           if (typeof v !== 'string') return wrong();
           if (s.enum && !s.enum.includes(v)) {
             const near = nearest(v, s.enum);
-            err(label.endsWith('class') ? 'unknown-class' : 'bad-value', node, `${label} "${v}" is not ${describe(s)}${near ? `; did you mean "${near}"?` : ''}`);
+            err(
+              label.endsWith('class') ? 'unknown-class' : 'bad-value',
+              node,
+              `${label} "${v}" is not ${describe(s)}${near ? `; did you mean "${near}"?` : ''}`,
+            );
             return undefined;
           }
           if (s.pattern && !new RegExp(s.pattern).test(v)) {
@@ -114,7 +130,8 @@ export function validate(root: Node | null, schema: Schema, file: string, lines:
           }
           return v;
         }
-        if (s.t === 'text' || s.t === 'scalar') return typeof v === 'string' || typeof v === 'number' || typeof v === 'boolean' ? (s.t === 'text' ? String(v) : v) : wrong();
+        if (s.t === 'text' || s.t === 'scalar')
+          return typeof v === 'string' || typeof v === 'number' || typeof v === 'boolean' ? (s.t === 'text' ? String(v) : v) : wrong();
         if (s.t === 'integer') {
           if (typeof v !== 'number' || !Number.isInteger(v)) return wrong();
           if ((s.min !== undefined && v < s.min) || (s.max !== undefined && v > s.max)) {
@@ -131,8 +148,14 @@ export function validate(root: Node | null, schema: Schema, file: string, lines:
           return undefined;
         }
         if (s.kinds && !s.kinds.includes(q.kind)) {
-          if (q.kind === 'unitless' && s.kinds.includes('frequency')) err('bare-frequency', node, `${label} ${v} has no unit; a frequency always carries one: write ${v} GHz, ${v} MHz, …`);
-          else if (q.kind === 'unitless') err('missing-unit', node, `${label} ${v} has no unit; expected ${describe(s)}, e.g. ${v} ${s.kinds[0] === 'dB' ? 'dB' : s.kinds[0] === 'deg' ? 'deg' : 'ns'}`);
+          if (q.kind === 'unitless' && s.kinds.includes('frequency'))
+            err('bare-frequency', node, `${label} ${v} has no unit; a frequency always carries one: write ${v} GHz, ${v} MHz, …`);
+          else if (q.kind === 'unitless')
+            err(
+              'missing-unit',
+              node,
+              `${label} ${v} has no unit; expected ${describe(s)}, e.g. ${v} ${s.kinds[0] === 'dB' ? 'dB' : s.kinds[0] === 'deg' ? 'deg' : 'ns'}`,
+            );
           else err('unit-mismatch', node, `${label} "${v}" is ${KIND_NAMES[q.kind]}; expected ${describe(s)}`);
           return undefined;
         }
@@ -152,7 +175,11 @@ export function validate(root: Node | null, schema: Schema, file: string, lines:
           const field = s.fields[key];
           if (!field) {
             const near = nearest(key, names);
-            err('unknown-key', item.key as Node, `unknown key "${key}" in ${label}${near ? `; did you mean "${near}"?` : `; expected one of ${names.join(', ')}`}`);
+            err(
+              'unknown-key',
+              item.key as Node,
+              `unknown key "${key}" in ${label}${near ? `; did you mean "${near}"?` : `; expected one of ${names.join(', ')}`}`,
+            );
             continue;
           }
           const v = walk(item.value as Node | null, field, path ? `${path}.${key}` : key, key);
@@ -173,7 +200,11 @@ export function validate(root: Node | null, schema: Schema, file: string, lines:
           const key = raw === null ? null : String(raw);
           const ok = key !== null && (s.keys === 'integer' ? /^[1-9]\d*$/.test(key) : new RegExp(NAME_PATTERN).test(key));
           if (!ok) {
-            err('bad-value', item.key as Node, `${label}: key ${JSON.stringify(raw)} must be ${s.keys === 'integer' ? 'a port number (1, 2, …)' : 'a name of letters, digits, - and _ starting with a letter'}`);
+            err(
+              'bad-value',
+              item.key as Node,
+              `${label}: key ${JSON.stringify(raw)} must be ${s.keys === 'integer' ? 'a port number (1, 2, …)' : 'a name of letters, digits, - and _ starting with a letter'}`,
+            );
             continue;
           }
           positions.set(`${path}#${key}`, posOf(item.key as Node));

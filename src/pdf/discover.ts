@@ -30,9 +30,22 @@ export function usualPlaces(platform: NodeJS.Platform = process.platform, env: N
   }
   if (platform === 'win32') {
     const roots = [env.PROGRAMFILES, env['PROGRAMFILES(X86)'], env.LOCALAPPDATA].filter(Boolean) as string[];
-    return roots.flatMap((r) => [join(r, 'Google', 'Chrome', 'Application', 'chrome.exe'), join(r, 'Microsoft', 'Edge', 'Application', 'msedge.exe'), join(r, 'Chromium', 'Application', 'chrome.exe')]);
+    return roots.flatMap((r) => [
+      join(r, 'Google', 'Chrome', 'Application', 'chrome.exe'),
+      join(r, 'Microsoft', 'Edge', 'Application', 'msedge.exe'),
+      join(r, 'Chromium', 'Application', 'chrome.exe'),
+    ]);
   }
-  return ['/usr/bin/chromium', '/usr/bin/chromium-browser', '/usr/bin/google-chrome', '/usr/bin/google-chrome-stable', '/usr/bin/microsoft-edge', '/usr/bin/microsoft-edge-stable', '/snap/bin/chromium', '/opt/google/chrome/chrome'];
+  return [
+    '/usr/bin/chromium',
+    '/usr/bin/chromium-browser',
+    '/usr/bin/google-chrome',
+    '/usr/bin/google-chrome-stable',
+    '/usr/bin/microsoft-edge',
+    '/usr/bin/microsoft-edge-stable',
+    '/snap/bin/chromium',
+    '/opt/google/chrome/chrome',
+  ];
 }
 
 /** A browser the user named: it must be a file; a wrong path is the user's to fix, not a reason to build without PDFs. */
@@ -46,7 +59,10 @@ function named(path: string, source: 'flag' | 'environment', shown: string): Fou
   return st.isFile() ? { path, source, args: [] } : { missing: `${shown}: ${st.isDirectory() ? 'is a folder, not a browser' : 'is not a file'}`, named: true };
 }
 
-export async function findBrowser(flag: string | undefined, env: NodeJS.ProcessEnv = process.env): Promise<FoundBrowser | { readonly missing: string; readonly named?: true }> {
+export async function findBrowser(
+  flag: string | undefined,
+  env: NodeJS.ProcessEnv = process.env,
+): Promise<FoundBrowser | { readonly missing: string; readonly named?: true }> {
   if (flag) return named(flag, 'flag', `--browser ${flag}`);
   const fromEnv = env.SCATTERBOOK_BROWSER;
   if (fromEnv) return named(fromEnv, 'environment', `SCATTERBOOK_BROWSER=${fromEnv}`);
@@ -57,7 +73,8 @@ export async function findBrowser(flag: string | undefined, env: NodeJS.ProcessE
     try {
       const mod = (await import('@sparticuz/chromium')) as unknown as { default: { executablePath(): Promise<string>; args: string[] } };
       const path = await mod.default.executablePath();
-      if (path && existsSync(path)) return { path, source: 'bundled', args: mod.default.args.filter((a) => !a.startsWith('--headless') && a !== '--single-process') };
+      if (path && existsSync(path))
+        return { path, source: 'bundled', args: mod.default.args.filter((a) => !a.startsWith('--headless') && a !== '--single-process') };
     } catch {
       // not installed (it is optional), or it could not unpack: fall through
     }

@@ -51,7 +51,17 @@ export interface PrintReport {
 
 /** The flags that keep a headless browser offline and quiet, with a fresh profile. */
 export function launchArgs(profile: string): string[] {
-  const args = ['--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic', '--disable-default-apps', '--mute-audio', `--user-data-dir=${profile}`];
+  const args = [
+    '--disable-gpu',
+    '--disable-background-networking',
+    '--disable-component-update',
+    '--disable-sync',
+    '--no-first-run',
+    '--disable-quic',
+    '--disable-default-apps',
+    '--mute-audio',
+    `--user-data-dir=${profile}`,
+  ];
   // the sandbox cannot start as root; everywhere else it stays on
   if (process.getuid?.() === 0) args.push('--no-sandbox');
   return args;
@@ -93,7 +103,11 @@ async function launch(found: FoundBrowser, profile: string, proxyPort: number): 
   const timeout = new Promise<never>((_, reject) => {
     timer = setTimeout(() => {
       abort.abort();
-      reject(new EnvironmentFault(`the browser ${found.path} did not answer within ${LAUNCH_TIMEOUT_MS / 1000} s; is it a Chromium-family browser? (--browser or SCATTERBOOK_BROWSER names another)`));
+      reject(
+        new EnvironmentFault(
+          `the browser ${found.path} did not answer within ${LAUNCH_TIMEOUT_MS / 1000} s; is it a Chromium-family browser? (--browser or SCATTERBOOK_BROWSER names another)`,
+        ),
+      );
     }, LAUNCH_TIMEOUT_MS);
   });
   try {
@@ -113,7 +127,9 @@ async function launch(found: FoundBrowser, profile: string, proxyPort: number): 
     if (e instanceof EnvironmentFault) throw e;
     const text = String((e as Error).message ?? e);
     const first = /Target closed|Connection closed/.test(text) ? 'it exited before it answered' : (text.split('\n').find((l) => l.trim()) ?? 'it exited');
-    throw new EnvironmentFault(`the browser ${found.path} could not start: ${first.trim()}; --browser or SCATTERBOOK_BROWSER names another, --no-pdf builds without PDFs`);
+    throw new EnvironmentFault(
+      `the browser ${found.path} could not start: ${first.trim()}; --browser or SCATTERBOOK_BROWSER names another, --no-pdf builds without PDFs`,
+    );
   } finally {
     clearTimeout(timer);
   }
@@ -178,7 +194,8 @@ export async function printAll(found: FoundBrowser, root: string, jobs: readonly
     const version = await browser.version();
     const t1 = performance.now();
     const size = Math.max(1, Math.min(jobs.length, options.pages ?? Math.min(4, Math.max(2, availableParallelism()))));
-    let next = 0, done = 0;
+    let next = 0,
+      done = 0;
     const worker = async () => {
       const page = await (browser as Browser).newPage();
       await page.setRequestInterception(true);

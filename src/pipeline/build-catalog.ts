@@ -4,7 +4,8 @@
  * callback.
  */
 import { openCache } from './cache.js';
-import { assembleCatalog, buildPartPage, partFolders, readSettings } from './catalog.js';
+import { assembleCatalog, partFolders, readSettings } from './catalog.js';
+import { buildPartPage } from './part-page.js';
 import type { StageTimes } from './part.js';
 import { createHash } from 'node:crypto';
 import { relative } from 'node:path';
@@ -25,8 +26,16 @@ async function buildPartSafely(...args: Parameters<typeof buildPartPage>): Promi
   } catch (e) {
     if ((e as NodeJS.ErrnoException).code) throw e;
     const file = relative(process.cwd(), args[0]) || args[0];
-    const what = e instanceof Error ? e.stack ?? e.message : String(e);
-    return { page: null, failure: { slug: args[2], file, internal: true, messages: [`${file}: internal error while building this part (a bug in scatterbook; please report it with this part file and its data):\n${what}`] } };
+    const what = e instanceof Error ? (e.stack ?? e.message) : String(e);
+    return {
+      page: null,
+      failure: {
+        slug: args[2],
+        file,
+        internal: true,
+        messages: [`${file}: internal error while building this part (a bug in scatterbook; please report it with this part file and its data):\n${what}`],
+      },
+    };
   }
 }
 
@@ -94,7 +103,11 @@ export async function buildCatalog(contentRoot: string, options: BuildCatalogOpt
     const display = relative(process.cwd(), file) || file;
     const outcome = await evaluateComparisonFile(file, contentRoot, display);
     if (outcome.errors.length || !outcome.comparison) {
-      failures.push({ slug: `comparisons/${slug}`, file: display, messages: outcome.errors.map((e) => formatSpecError(e, e.file === display ? outcome.source : undefined)) });
+      failures.push({
+        slug: `comparisons/${slug}`,
+        file: display,
+        messages: outcome.errors.map((e) => formatSpecError(e, e.file === display ? outcome.source : undefined)),
+      });
       continue;
     }
     comparisons.push(await buildComparisonPage(outcome, slug, contentRoot, file));

@@ -41,7 +41,10 @@ function treeHash(dir: string, keep: (name: string) => boolean = () => true): st
         continue;
       }
       if (st.isDirectory()) walk(p);
-      else if (st.isFile() && keep(name)) h.update(`${relative(dir, p)}\0`).update(readFileSync(p)).update('\0');
+      else if (st.isFile() && keep(name))
+        h.update(`${relative(dir, p)}\0`)
+          .update(readFileSync(p))
+          .update('\0');
     }
   };
   walk(dir);
@@ -75,12 +78,22 @@ export interface PartCache {
 
 /** A cache in `dir` for one build: `siteText` is site.yaml's text, `content` the content folder (its _includes/ key the entries too). */
 export function openCache(dir: string, content: string, siteText: string): PartCache {
-  const base = createHash('sha256').update(toolBuildId()).update('\0').update(siteText).update('\0').update(treeHash(join(content, '_includes'))).digest('hex');
+  const base = createHash('sha256')
+    .update(toolBuildId())
+    .update('\0')
+    .update(siteText)
+    .update('\0')
+    .update(treeHash(join(content, '_includes')))
+    .digest('hex');
   const keyOf = (partFile: string): string | null => {
     try {
       // release records and released documents key the entry too: they make the revision history and the release check
       const dir = dirname(partFile);
-      const records = readdirSync(dir).filter((n) => /^release-.+\.txt$/.test(n)).sort().map((n) => `${n}\0${readFileSync(join(dir, n), 'utf8')}`).join('\0');
+      const records = readdirSync(dir)
+        .filter((n) => /^release-.+\.txt$/.test(n))
+        .sort()
+        .map((n) => `${n}\0${readFileSync(join(dir, n), 'utf8')}`)
+        .join('\0');
       return sha256(`${base}\0${readFileSync(partFile, 'utf8')}\0${records}\0${treeHash(join(dir, 'released'))}`).slice(0, 32);
     } catch {
       return null; // not a readable file: the part's build says why
@@ -106,7 +119,8 @@ export function openCache(dir: string, content: string, siteText: string): PartC
       }
       const page = entry.page ?? null;
       // the bulky texts stay in the cache's files: the page refers to them (pipeline/spill.ts), if they are all there
-      if (page && (page.plots.some((p) => p.svgFile && !existsSync(p.svgFile)) || (page.exports.median?.file && !existsSync(page.exports.median.file)))) return null;
+      if (page && (page.plots.some((p) => p.svgFile && !existsSync(p.svgFile)) || (page.exports.median?.file && !existsSync(page.exports.median.file))))
+        return null;
       return page;
     },
     write(slug, partFile, page) {

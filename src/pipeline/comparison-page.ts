@@ -15,8 +15,8 @@ import { comparisonPlots, differencePlots } from '../plots/comparison.js';
 import { groupStyle } from '../plots/model.js';
 import type { ComparisonOutcome } from './comparison.js';
 import { plotBlocks } from './plot-blocks.js';
-import { inputsOf } from './catalog.js';
-import type { ComparisonCandidate, ComparisonCell, ComparisonPage, Inputs, PlotBlock } from '../model/catalog.js';
+import { inputsOf } from './inputs.js';
+import type { ComparisonCandidate, ComparisonCell, ComparisonPage } from '../model/catalog.js';
 
 const ohms = (v: number) => `${trimNumber(v)} Ω`;
 
@@ -36,18 +36,30 @@ export async function buildComparisonPage(outcome: ComparisonOutcome, slug: stri
       cells: results.map((c): ComparisonCell => {
         const r = c.byCheck[i];
         if (!r) return { text: 'no data', value: null, margin: '', verdict: 'NO DATA', best: false };
-        return { text: formatValue(r.worst, r.unit, resolution), value: Number.isFinite(r.worst) ? r.worst : null, margin: formatValue(r.margin, r.unit, resolution), verdict: r.pass === false ? 'FAIL' : 'PASS', best: best !== null && r.margin === best };
+        return {
+          text: formatValue(r.worst, r.unit, resolution),
+          value: Number.isFinite(r.worst) ? r.worst : null,
+          margin: formatValue(r.margin, r.unit, resolution),
+          verdict: r.pass === false ? 'FAIL' : 'PASS',
+          best: best !== null && r.margin === best,
+        };
       }),
     };
   });
   const reasonOf = new Map(results.map((c, i) => [c.label, outcome.reasons[i]]));
   const ranked = results.filter((c) => c.rank !== null).sort((a, b) => (a.rank as number) - (b.rank as number));
-  const ranking = [...ranked, ...results.filter((c) => c.rank === null)].map((c) => ({ rank: c.rank === null ? '—' : String(c.rank), label: c.label, reason: reasonOf.get(c.label) ?? '' }));
+  const ranking = [...ranked, ...results.filter((c) => c.rank === null)].map((c) => ({
+    rank: c.rank === null ? '—' : String(c.rank),
+    label: c.label,
+    reason: reasonOf.get(c.label) ?? '',
+  }));
   const candidates = outcome.candidates.map((lc, i): ComparisonCandidate => {
     const c = results[i];
     const style = groupStyle(i);
     const refs = new Set(lc.units.flatMap((u) => Array.from(u.network.z0)));
-    const renormalized = [...refs].some((z) => z !== cmp.referenceOhms) ? `renormalized from ${[...refs].map(ohms).join(' / ')} to ${ohms(cmp.referenceOhms)}` : '';
+    const renormalized = [...refs].some((z) => z !== cmp.referenceOhms)
+      ? `renormalized from ${[...refs].map(ohms).join(' / ')} to ${ohms(cmp.referenceOhms)}`
+      : '';
     return {
       label: c.label,
       vendor: lc.spec.vendor ?? lc.part?.vendor ?? '',
@@ -60,11 +72,14 @@ export async function buildComparisonPage(outcome: ComparisonOutcome, slug: stri
       verdict: c.coverage === 'partial' ? 'NOT RANKED: partial data' : c.pass ? 'PASS' : 'FAIL',
       reason: reasonOf.get(c.label) ?? '',
       gaps: bandGaps(c).map(gapText),
-      source: lc.part ? `catalog part ${lc.part.part}${lc.part.revision ? `, revision ${lc.part.revision}` : ''} (${lc.spec.source.kind === 'part' ? lc.spec.source.path : ''})` : `Touchstone file${lc.units.length === 1 ? '' : 's'}`,
+      source: lc.part
+        ? `catalog part ${lc.part.part}${lc.part.revision ? `, revision ${lc.part.revision}` : ''} (${lc.spec.source.kind === 'part' ? lc.spec.source.path : ''})`
+        : `Touchstone file${lc.units.length === 1 ? '' : 's'}`,
       portMap: lc.spec.portMap ? lc.spec.portMap.map((p, k) => `our port ${k + 1} = file port ${p}`).join(', ') : '',
       renormalized,
       units: lc.units.map((u) => {
-        const net = u.network, k = net.freqHz.length;
+        const net = u.network,
+          k = net.freqHz.length;
         const uniform = net.z0.every((r) => r === net.z0[0]);
         return {
           unit: u.unit,
@@ -103,7 +118,13 @@ export async function buildComparisonPage(outcome: ComparisonOutcome, slug: stri
     classTitle: classOf(req.partClass).title,
     reference: ohms(cmp.referenceOhms),
     bands: [...req.bands.values()].map((b) => ({ name: b.name, range: bandRange(b.fromHz, b.toHz) })),
-    requirement: req.checks.map((c) => ({ label: c.label, on: c.on.join(', '), band: c.band.name, bandRange: bandRange(c.band.fromHz, c.band.toHz), limit: formatLimit(c.limit, c.figure.unit) })),
+    requirement: req.checks.map((c) => ({
+      label: c.label,
+      on: c.on.join(', '),
+      band: c.band.name,
+      bandRange: bandRange(c.band.fromHz, c.band.toHz),
+      limit: formatLimit(c.limit, c.figure.unit),
+    })),
     candidates,
     rows,
     ranking,
@@ -114,6 +135,10 @@ export async function buildComparisonPage(outcome: ComparisonOutcome, slug: stri
     warnings: results.flatMap((c) => c.warnings.map((w) => ({ where: c.label, message: w.message }))),
     // safe inside <script type="application/json">: no "<" can close the element
     comparisonJson: JSON.stringify(comparisonJson(cmp.title, cmp.referenceOhms, results)).replace(/</g, '\\u003c'),
-    inputs: inputsOf(file, outcome.candidates.flatMap((lc) => lc.units), contentRoot),
+    inputs: inputsOf(
+      file,
+      outcome.candidates.flatMap((lc) => lc.units),
+      contentRoot,
+    ),
   };
 }

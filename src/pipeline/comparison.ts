@@ -34,7 +34,15 @@ export interface ComparisonOutcome {
   readonly errors: readonly SpecError[];
 }
 
-const failed = (source: string, errors: readonly SpecError[], comparison: NormalizedComparison | null = null): ComparisonOutcome => ({ source, comparison, candidates: [], results: [], reasons: [], differences: null, errors });
+const failed = (source: string, errors: readonly SpecError[], comparison: NormalizedComparison | null = null): ComparisonOutcome => ({
+  source,
+  comparison,
+  candidates: [],
+  results: [],
+  reasons: [],
+  differences: null,
+  errors,
+});
 
 /**
  * @param file  the comparison file
@@ -70,13 +78,38 @@ export async function evaluateComparisonFile(file: string, contentRoot: string, 
       }
       warnings.push(...r.warnings);
       const unit = n === 1 ? c.label : `${c.label} #${i + 1}`;
-      units.push({ unit, serial: unit, file: p, network: r.value.network, noise: r.value.noise, mixedModeOrder: r.value.info.mixedModeOrder, conditions: {}, fileAt: at, data: r.value, path: r.path, bytes: r.bytes, sha256: r.sha256 });
+      units.push({
+        unit,
+        serial: unit,
+        file: p,
+        network: r.value.network,
+        noise: r.value.noise,
+        mixedModeOrder: r.value.info.mixedModeOrder,
+        conditions: {},
+        fileAt: at,
+        data: r.value,
+        path: r.path,
+        bytes: r.bytes,
+        sha256: r.sha256,
+      });
     });
     if (c.portMap) {
       const top = Math.max(...c.portMap);
       for (const u of units) {
-        if (top > u.network.ports) errors.push({ code: 'port-range', file: display, ...c.portsAt, message: `the port map of "${c.label}" names port ${top} of the file, but ${u.file} has ${u.network.ports} port${u.network.ports === 1 ? '' : 's'}` });
-        else if (u.mixedModeOrder) errors.push({ code: 'bad-value', file: display, ...c.portsAt, message: `${u.file} of "${c.label}" is written in mixed-mode order; its ports are modes, which a port map cannot renumber` });
+        if (top > u.network.ports)
+          errors.push({
+            code: 'port-range',
+            file: display,
+            ...c.portsAt,
+            message: `the port map of "${c.label}" names port ${top} of the file, but ${u.file} has ${u.network.ports} port${u.network.ports === 1 ? '' : 's'}`,
+          });
+        else if (u.mixedModeOrder)
+          errors.push({
+            code: 'bad-value',
+            file: display,
+            ...c.portsAt,
+            message: `${u.file} of "${c.label}" is written in mixed-mode order; its ports are modes, which a port map cannot renumber`,
+          });
       }
     }
     candidates.push({ spec: c, units, part: null, warnings });
@@ -90,9 +123,19 @@ export async function evaluateComparisonFile(file: string, contentRoot: string, 
   ).map((r, i) => (candidates[i].warnings.length ? { ...r, warnings: [...candidates[i].warnings, ...r.warnings] } : r));
   const evaluationErrors = candidateErrors(results);
   for (const band of bandsNoneCover(comparison.requirement, results)) {
-    evaluationErrors.push({ code: 'band-outside-data', file: display, ...band.at, message: `no candidate has any data in band ${band.name}; a comparison there would be all extrapolation: measure it, or narrow the band` });
+    evaluationErrors.push({
+      code: 'band-outside-data',
+      file: display,
+      ...band.at,
+      message: `no candidate has any data in band ${band.name}; a comparison there would be all extrapolation: measure it, or narrow the band`,
+    });
   }
-  if (evaluationErrors.length) return failed(source, evaluationErrors.sort((a, b) => a.line - b.line || a.column - b.column), comparison);
+  if (evaluationErrors.length)
+    return failed(
+      source,
+      evaluationErrors.sort((a, b) => a.line - b.line || a.column - b.column),
+      comparison,
+    );
   return {
     source,
     comparison,
@@ -104,16 +147,39 @@ export async function evaluateComparisonFile(file: string, contentRoot: string, 
   };
 }
 
-async function loadCandidatePart(c: CandidateSpec, src: Extract<CandidateSpec['source'], { kind: 'part' }>, base: string, contentRoot: string, display: string): Promise<LoadedCandidate | { errors: SpecError[] }> {
+async function loadCandidatePart(
+  c: CandidateSpec,
+  src: Extract<CandidateSpec['source'], { kind: 'part' }>,
+  base: string,
+  contentRoot: string,
+  display: string,
+): Promise<LoadedCandidate | { errors: SpecError[] }> {
   const at = { file: display, ...src.at };
   const checked = contentFile(src.path, base, contentRoot, `part "${src.path}" of candidate "${c.label}"`, at);
   if (!checked.ok) return { errors: checked.errors };
   const path = checked.path;
-  if (!/\.ya?ml$/i.test(path)) return { errors: [{ code: 'bad-value', ...at, message: `part "${src.path}" of candidate "${c.label}" is no part file (a part file is YAML, e.g. ../parts/vt-bpf-2450/part.yaml); Touchstone files go under files: or file:` }] };
+  if (!/\.ya?ml$/i.test(path))
+    return {
+      errors: [
+        {
+          code: 'bad-value',
+          ...at,
+          message: `part "${src.path}" of candidate "${c.label}" is no part file (a part file is YAML, e.g. ../parts/vt-bpf-2450/part.yaml); Touchstone files go under files: or file:`,
+        },
+      ],
+    };
   const r = await loadPartFile(path, contentRoot, src.path);
   if (!r.part) {
     const first = r.errors[0];
-    return { errors: [{ code: 'bad-value', ...at, message: `part "${src.path}" of candidate "${c.label}" is no valid part file: ${r.errors.length} error${r.errors.length === 1 ? '' : 's'}, the first ${first ? `at line ${first.line}: ${first.message}` : 'unknown'}` }] };
+    return {
+      errors: [
+        {
+          code: 'bad-value',
+          ...at,
+          message: `part "${src.path}" of candidate "${c.label}" is no valid part file: ${r.errors.length} error${r.errors.length === 1 ? '' : 's'}, the first ${first ? `at line ${first.line}: ${first.message}` : 'unknown'}`,
+        },
+      ],
+    };
   }
   if (r.errors.length) return { errors: [...r.errors] };
   return { spec: c, units: r.units, part: r.part, warnings: r.warnings };

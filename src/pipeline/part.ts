@@ -43,6 +43,7 @@ export interface StageTimes {
   pages: number;
 }
 
+/** @public used by the build benchmark (test/bench/build.bench.ts, through dist/) */
 export const newStageTimes = (): StageTimes => ({ read: 0, figures: 0, plots: 0, pages: 0 });
 
 /** True when `target` lies inside `root` (links resolved as far as each path exists). */
@@ -62,13 +63,31 @@ export function contentFile(
   const path = resolve(base, file);
   const at = { file: where.file, line: where.line, column: where.column };
   if (isAbsolute(file) || !isInside(contentRoot, path)) {
-    return { ok: false, errors: [{ code: 'path-outside', ...at, message: `${what} lies outside the content folder ${relative(process.cwd(), contentRoot) || '.'}; files must stay inside it` }] };
+    return {
+      ok: false,
+      errors: [
+        {
+          code: 'path-outside',
+          ...at,
+          message: `${what} lies outside the content folder ${relative(process.cwd(), contentRoot) || '.'}; files must stay inside it`,
+        },
+      ],
+    };
   }
   let problem: string | null;
   try {
     problem = notAFile(statSync(path));
   } catch (e) {
-    return { ok: false, errors: [{ code: 'missing-file', ...at, message: `${what} ${whyNotThere(path, (e as NodeJS.ErrnoException).code)} (looked for ${relative(process.cwd(), path)})` }] };
+    return {
+      ok: false,
+      errors: [
+        {
+          code: 'missing-file',
+          ...at,
+          message: `${what} ${whyNotThere(path, (e as NodeJS.ErrnoException).code)} (looked for ${relative(process.cwd(), path)})`,
+        },
+      ],
+    };
   }
   if (problem) return { ok: false, errors: [{ code: 'missing-file', ...at, message: `${what} ${problem} (${relative(process.cwd(), path)})` }] };
   return { ok: true, path };
@@ -94,13 +113,21 @@ export function readMeasurementFile(
   /** How messages name the file, e.g. measurement file "data/sn1.s2p" of unit SN1. */
   what: string,
   where: { readonly file: string; readonly line: number; readonly column: number },
-): { ok: true; path: string; value: NonNullable<ReturnType<typeof readTouchstoneFile>['value']>; bytes: number; sha256: string; warnings: SpecWarning[] } | { ok: false; errors: SpecError[] } {
+):
+  | { ok: true; path: string; value: NonNullable<ReturnType<typeof readTouchstoneFile>['value']>; bytes: number; sha256: string; warnings: SpecWarning[] }
+  | { ok: false; errors: SpecError[] } {
   const checked = contentFile(file, base, contentRoot, what, where);
   if (!checked.ok) return checked;
   const path = checked.path;
   const r = readTouchstoneFile(path);
   const fileLabel = relative(process.cwd(), path);
-  const positioned = (d: { line: number; column?: number; message: string }) => ({ code: 'touchstone' as const, file: fileLabel, line: d.line, column: d.column ?? (d.line ? 1 : 0), message: d.message });
+  const positioned = (d: { line: number; column?: number; message: string }) => ({
+    code: 'touchstone' as const,
+    file: fileLabel,
+    line: d.line,
+    column: d.column ?? (d.line ? 1 : 0),
+    message: d.message,
+  });
   if (!r.value) return { ok: false, errors: r.errors.map(positioned) };
   return { ok: true, path, value: r.value, bytes: r.bytes, sha256: r.sha256, warnings: r.warnings.map(positioned) };
 }
@@ -141,7 +168,20 @@ export async function loadPartFile(partFile: string, contentRoot: string, displa
       continue;
     }
     warnings.push(...r.warnings);
-    units.push({ unit: m.label, serial: m.unit, file: m.file, network: r.value.network, noise: r.value.noise, mixedModeOrder: r.value.info.mixedModeOrder, conditions: m.conditions, fileAt: m.fileAt, data: r.value, path: r.path, bytes: r.bytes, sha256: r.sha256 });
+    units.push({
+      unit: m.label,
+      serial: m.unit,
+      file: m.file,
+      network: r.value.network,
+      noise: r.value.noise,
+      mixedModeOrder: r.value.info.mixedModeOrder,
+      conditions: m.conditions,
+      fileAt: m.fileAt,
+      data: r.value,
+      path: r.path,
+      bytes: r.bytes,
+      sha256: r.sha256,
+    });
   }
   return { source, part, units, errors, warnings };
 }

@@ -20,9 +20,18 @@ const ASSURANCE_TEXT: Readonly<Record<Assurance, string>> = {
   design: 'assured by design and not tested',
 };
 
-export const conditionText = (c: Readonly<Record<string, string>>) => Object.entries(c).map(([k, v]) => `${k} ${v}`).join(', ');
+export const conditionText = (c: Readonly<Record<string, string>>) =>
+  Object.entries(c)
+    .map(([k, v]) => `${k} ${v}`)
+    .join(', ');
 
-function specRow(r: CheckResult, when: Readonly<Record<string, string>> | null, typicalAt: Readonly<Record<string, string>> | null, reference: string, resolutionHz: number | null): Omit<SpecRow, 'result'> {
+function specRow(
+  r: CheckResult,
+  when: Readonly<Record<string, string>> | null,
+  typicalAt: Readonly<Record<string, string>> | null,
+  reference: string,
+  resolutionHz: number | null,
+): Omit<SpecRow, 'result'> {
   const l = r.limit;
   const two = l?.tolerance !== undefined && l.nominal !== undefined;
   const min = two ? (l.nominal as number) - (l.tolerance as number) : (l?.min ?? null);
@@ -30,12 +39,27 @@ function specRow(r: CheckResult, when: Readonly<Record<string, string>> | null, 
   const d = displayUnit([min, max, r.typical], r.unit);
   const num = (v: number | null): Cell => ({ text: formatNumber(v, r.unit, d, resolutionHz), value: v !== null && Number.isFinite(v) ? v : null });
   // a two-sided typical is shown as its deviation from nominal, so that units on either side do not read as cancelling
-  const typ: Cell = two ? { text: `${formatNumber(l.nominal as number, r.unit, d)} ± ${formatNumber(Math.abs(r.typical - (l.nominal as number)), r.unit, d)}`, value: r.typical } : num(r.typical);
+  const typ: Cell = two
+    ? { text: `${formatNumber(l.nominal as number, r.unit, d)} ± ${formatNumber(Math.abs(r.typical - (l.nominal as number)), r.unit, d)}`, value: r.typical }
+    : num(r.typical);
   // the part's typical-at is stated once above the table; a row says more only where its typical differs from that
-  const typicalNote = r.typicalAt ? '' : typicalAt ? `typical over its own units (none measured at ${conditionText(typicalAt)})` : r.typicalMixed ? 'typical over units measured under different conditions' : '';
+  const typicalNote = r.typicalAt
+    ? ''
+    : typicalAt
+      ? `typical over its own units (none measured at ${conditionText(typicalAt)})`
+      : r.typicalMixed
+        ? 'typical over units measured under different conditions'
+        : '';
   // the band heads the group; the row states the conditions its limit holds under, and the reference impedance
   const conditions = [when ? conditionText(when) : 'all measured conditions', reference].filter(Boolean).join(', ');
-  const limitText = max !== null && min !== null && !two ? `${formatLimit(r.limit, r.unit)}` : max !== null ? `≤ ${formatValue(max, r.unit)} max` : min !== null ? `≥ ${formatValue(min, r.unit)} min` : '';
+  const limitText =
+    max !== null && min !== null && !two
+      ? `${formatLimit(r.limit, r.unit)}`
+      : max !== null
+        ? `≤ ${formatValue(max, r.unit)} max`
+        : min !== null
+          ? `≥ ${formatValue(min, r.unit)} min`
+          : '';
   return {
     label: r.label,
     on: r.on.join(', '),
@@ -104,11 +128,10 @@ export function composeDisclaimer(results: readonly CheckResult[], declared = fa
     marks.length ? `${marks.join('; ').replace(/^l/, 'L')}.` : '',
     unmarked ? `${marks.length ? 'Other limits are' : 'The limits are'} checked on those units only and are not a guarantee for other units.` : '',
     declared ? `Values marked ${DECLARED_MARK} are declared by the vendor and were not computed from the measured files.` : '',
-    'Whether the part suits an application is for the user\'s own qualification to establish.',
+    "Whether the part suits an application is for the user's own qualification to establish.",
   ]
     .filter(Boolean)
     .join(' ');
 }
 
 const ASSURANCES_IN_ORDER: readonly Assurance[] = ['every-unit', 'sample', 'design'];
-

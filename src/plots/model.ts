@@ -145,7 +145,12 @@ export function itemsFor(def: PlotDef, fig: FigureDef, matching: readonly Normal
   if (fig.operands === 'port-pair') {
     const [a, b] = def.ports ?? [1, 2];
     if (Math.max(a, b) > ports) return [];
-    const four: SParameter[] = [{ to: a, from: a }, { to: b, from: a }, { to: a, from: b }, { to: b, from: b }];
+    const four: SParameter[] = [
+      { to: a, from: a },
+      { to: b, from: a },
+      { to: a, from: b },
+      { to: b, from: b },
+    ];
     return [{ params: four, label: `ports ${a}, ${b}` }];
   }
   const own = matching.filter((c) => c.figure.id === fig.id).flatMap((c) => c.items);
@@ -155,7 +160,12 @@ export function itemsFor(def: PlotDef, fig: FigureDef, matching: readonly Normal
   else {
     const names = def.on ?? [];
     const params = names.map(parseParameter).flatMap((p) => (p.ok ? [p.value] : []));
-    items = fig.operands === 'pair' ? (params.length === 2 ? [{ params, label: params.map(parameterName).join('/') }] : []) : params.map((p) => ({ params: [p], label: parameterName(p) }));
+    items =
+      fig.operands === 'pair'
+        ? params.length === 2
+          ? [{ params, label: params.map(parameterName).join('/') }]
+          : []
+        : params.map((p) => ({ params: [p], label: parameterName(p) }));
   }
   const unique = new Map(items.map((i) => [i.label, i]));
   return [...unique.values()].filter((i) => i.params.every((p) => p.mode !== undefined || (p.to <= ports && p.from <= ports)));
@@ -195,7 +205,18 @@ export function buildPlots(part: NormalizedPart, units: readonly UnitData[]): Pl
     // noise figures sit on the noise frequencies
     const noisy = fig.grid === 'noise' ? units.filter((u) => u.noise) : [];
     if (fig.grid === 'noise' && !noisy.length) return;
-    const [glo, ghi] = fig.grid === 'noise' ? [largest(noisy.map((u) => (u.noise as NonNullable<UnitData['noise']>).freqHz[0])), smallest(noisy.map((u) => { const f = (u.noise as NonNullable<UnitData['noise']>).freqHz; return f[f.length - 1]; }))] : [lo, hi];
+    const [glo, ghi] =
+      fig.grid === 'noise'
+        ? [
+            largest(noisy.map((u) => (u.noise as NonNullable<UnitData['noise']>).freqHz[0])),
+            smallest(
+              noisy.map((u) => {
+                const f = (u.noise as NonNullable<UnitData['noise']>).freqHz;
+                return f[f.length - 1];
+              }),
+            ),
+          ]
+        : [lo, hi];
     const range = rangeFor(def, part, matching, glo, ghi);
     if (!items.length || !range || !(range[1] > range[0])) return;
     const model = buildOne(part, units, def, fig, items, matching, range, index);
@@ -227,26 +248,38 @@ export function groupStyle(i: number): { color: string; dash: readonly number[] 
   return { color: PALETTE[i % PALETTE.length], dash: DASHES[(i + Math.floor(i / PALETTE.length)) % DASHES.length] };
 }
 
-export function buildOne(part: NormalizedPart, units: readonly UnitData[], def: PlotDef, fig: FigureDef, items: readonly Item[], matching: readonly NormalizedCheck[], range: [number, number], index: number, own?: OwnGroups): PlotModel | null {
+export function buildOne(
+  part: NormalizedPart,
+  units: readonly UnitData[],
+  def: PlotDef,
+  fig: FigureDef,
+  items: readonly Item[],
+  matching: readonly NormalizedCheck[],
+  range: [number, number],
+  index: number,
+  own?: OwnGroups,
+): PlotModel | null {
   const [x0, x1] = range;
   const fu = frequencyUnitFor(x1);
   const nominal = matching.find((c) => c.figure.id === fig.id && c.nominal !== null)?.nominal ?? null;
   const groups = own ? own.groups.map((g) => ({ label: g.label, conditions: {}, units: [...g.units] })) : conditionGroups(units);
   // a series: one parameter over the units of one condition group (colour by condition where there are several, dash by parameter)
-  const series = groups.filter((g) => fig.grid !== 'noise' || g.units.some((u) => u.noise)).flatMap((g, gi) =>
-    items.map((item, ii) => ({
-      label: own ? g.label : g.label ? `${item.label} at ${g.label}` : item.label,
-      item,
-      group: g,
-      color: own ? groupStyle(gi).color : PALETTE[(groups.length > 1 ? gi : ii) % PALETTE.length],
-      dash: own ? groupStyle(gi).dash : DASHES[ii % DASHES.length],
-      data: g.units.flatMap((u) => {
-        const aperture = matching.find((c) => c.figure.id === fig.id)?.aperture ?? 1;
-        const t = figureTrace(part, fig, item, u, { aperture, nominal, band: { fromHz: x0, toHz: x1 } });
-        return t ? [{ unit: u.unit, freq: t.freqHz, values: t.values }] : [];
-      }),
-    })),
-  );
+  const series = groups
+    .filter((g) => fig.grid !== 'noise' || g.units.some((u) => u.noise))
+    .flatMap((g, gi) =>
+      items.map((item, ii) => ({
+        label: own ? g.label : g.label ? `${item.label} at ${g.label}` : item.label,
+        item,
+        group: g,
+        color: own ? groupStyle(gi).color : PALETTE[(groups.length > 1 ? gi : ii) % PALETTE.length],
+        dash: own ? groupStyle(gi).dash : DASHES[ii % DASHES.length],
+        data: g.units.flatMap((u) => {
+          const aperture = matching.find((c) => c.figure.id === fig.id)?.aperture ?? 1;
+          const t = figureTrace(part, fig, item, u, { aperture, nominal, band: { fromHz: x0, toHz: x1 } });
+          return t ? [{ unit: u.unit, freq: t.freqHz, values: t.values }] : [];
+        }),
+      })),
+    );
   const all: number[] = [];
   for (const se of series) for (const d of se.data) d.freq.forEach((f, k) => f >= x0 && f <= x1 && Number.isFinite(d.values[k]) && all.push(d.values[k]));
   if (!all.length) return null;
@@ -256,15 +289,22 @@ export function buildOne(part: NormalizedPart, units: readonly UnitData[], def: 
   const env: BandPoint[] = [];
   for (const se of series) {
     for (const d of se.data) {
-      for (const [f, v] of thin(d.freq, d.values, x0, x1)) traces.push({ x: f / fu.scale, y: v * disp.scale, item: se.label, trace: `${d.unit} ${se.item.label}` });
+      for (const [f, v] of thin(d.freq, d.values, x0, x1))
+        traces.push({ x: f / fu.scale, y: v * disp.scale, item: se.label, trace: `${d.unit} ${se.item.label}` });
     }
     const ref = se.data[0];
     if (!ref) continue;
-    const mf: number[] = [], mv: number[] = [], lo: number[] = [], hi: number[] = [];
+    const mf: number[] = [],
+      mv: number[] = [],
+      lo: number[] = [],
+      hi: number[] = [];
     ref.freq.forEach((f) => {
       if (f < x0 || f > x1) return;
       // a unit whose grid does not reach f is left out there, never extrapolated
-      const vals = se.data.filter((d) => f >= d.freq[0] && f <= d.freq[d.freq.length - 1]).map((d) => valueAt(d.freq, d.values, f)).filter(Number.isFinite);
+      const vals = se.data
+        .filter((d) => f >= d.freq[0] && f <= d.freq[d.freq.length - 1])
+        .map((d) => valueAt(d.freq, d.values, f))
+        .filter(Number.isFinite);
       if (!vals.length) return;
       mf.push(f);
       mv.push(medianOf(vals));
@@ -274,7 +314,9 @@ export function buildOne(part: NormalizedPart, units: readonly UnitData[], def: 
     for (const [f, v] of thin(mf, mv, x0, x1)) med.push({ x: f / fu.scale, y: v * disp.scale, item: se.label, trace: `median ${se.label}` });
     if (se.data.length > 1) {
       // the spread keeps each column's lowest low and highest high, each at its own point, the other edge interpolated there
-      const fa = Float64Array.from(mf), la = Float64Array.from(lo), ha = Float64Array.from(hi);
+      const fa = Float64Array.from(mf),
+        la = Float64Array.from(lo),
+        ha = Float64Array.from(hi);
       const points = new Map<number, BandPoint>();
       for (const [f] of [...thin(fa, la, x0, x1), ...thin(fa, ha, x0, x1)]) {
         points.set(f, { x: f / fu.scale, lo: valueAt(fa, la, f) * disp.scale, hi: valueAt(fa, ha, f) * disp.scale, item: se.label });
@@ -287,12 +329,18 @@ export function buildOne(part: NormalizedPart, units: readonly UnitData[], def: 
   for (const c of matching) {
     const l = c.limit;
     if (!l) continue;
-    for (const v of [l.max, l.min, l.nominal !== undefined && l.tolerance !== undefined ? l.nominal - l.tolerance : undefined, l.nominal !== undefined && l.tolerance !== undefined ? l.nominal + l.tolerance : undefined]) {
+    for (const v of [
+      l.max,
+      l.min,
+      l.nominal !== undefined && l.tolerance !== undefined ? l.nominal - l.tolerance : undefined,
+      l.nominal !== undefined && l.tolerance !== undefined ? l.nominal + l.tolerance : undefined,
+    ]) {
       if (v !== undefined && Number.isFinite(v)) limitYs.push(v * disp.scale);
     }
   }
   const ys = traces.map((t) => t.y).concat(limitYs);
-  let yMin = smallest(ys), yMax = largest(ys);
+  let yMin = smallest(ys),
+    yMax = largest(ys);
   const span = yMax - yMin || Math.abs(yMax) * 0.1 || 1;
   yMin -= span * 0.08;
   yMax += span * 0.08;
@@ -307,7 +355,8 @@ export function buildOne(part: NormalizedPart, units: readonly UnitData[], def: 
   for (const c of matching) {
     const l = c.limit;
     if (!l) continue;
-    const bx0 = Math.max(c.band.fromHz, x0) / fu.scale, bx1 = Math.min(c.band.toHz, x1) / fu.scale;
+    const bx0 = Math.max(c.band.fromHz, x0) / fu.scale,
+      bx1 = Math.min(c.band.toHz, x1) / fu.scale;
     if (!(bx1 >= bx0)) continue;
     const own = series.filter((se) => appliesTo(c, se));
     if (!own.length) continue;
@@ -334,7 +383,10 @@ export function buildOne(part: NormalizedPart, units: readonly UnitData[], def: 
     if (l.min !== undefined) add(yMin, l.min * disp.scale, l.min * disp.scale);
   }
   const title = def.title ?? fig.title;
-  const limitText = matching.filter((c) => c.limit).map((c) => `${c.label} over ${c.band.name}${c.when ? ` (${Object.values(c.when).join(', ')} only)` : ''}`).join('; ');
+  const limitText = matching
+    .filter((c) => c.limit)
+    .map((c) => `${c.label} over ${c.band.name}${c.when ? ` (${Object.values(c.when).join(', ')} only)` : ''}`)
+    .join('; ');
   const itemText = series.map((se) => se.label).join(', ');
   const serials = new Set(units.map((u) => u.serial ?? u.unit));
   // the axis names what is drawn: the plot's own axis title, else the one label its limits share, else the figure
@@ -374,14 +426,19 @@ export function buildOne(part: NormalizedPart, units: readonly UnitData[], def: 
 export function thin(xs: ArrayLike<number>, ys: ArrayLike<number>, x0: number, x1: number, buckets = PLOT_BUCKETS): Array<[number, number]> {
   const keep: number[] = [];
   const width = (x1 - x0) / buckets || 1;
-  let b = -1, lo = -1, hi = -1, first = -1, last = -1;
+  let b = -1,
+    lo = -1,
+    hi = -1,
+    first = -1,
+    last = -1;
   const flush = () => {
     if (lo < 0) return;
     if (lo === hi) keep.push(lo);
     else keep.push(Math.min(lo, hi), Math.max(lo, hi));
   };
   for (let k = 0; k < xs.length; k++) {
-    const x = xs[k], y = ys[k];
+    const x = xs[k],
+      y = ys[k];
     if (x < x0 || x > x1 || !Number.isFinite(y)) continue;
     if (first < 0) first = k;
     last = k;

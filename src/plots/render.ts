@@ -38,7 +38,16 @@ function compiledTemplate(shape: PlotShape): string {
     const items = Array.from({ length: shape.itemCount }, (_, i) => `@@item${i}@@`);
     const colors = items.map((_, i) => `@@color${i}@@`);
     const dashes = items.map((_, i) => [DASH_SENTINEL + i, 1]);
-    const vl = specOf(shape, { title: '@@title@@', xTitle: '@@xTitle@@', yTitle: '@@yTitle@@', xDomain: [SENTINEL.x0, SENTINEL.x1], yDomain: [SENTINEL.y0, SENTINEL.y1], items, colors, dashes });
+    const vl = specOf(shape, {
+      title: '@@title@@',
+      xTitle: '@@xTitle@@',
+      yTitle: '@@yTitle@@',
+      xDomain: [SENTINEL.x0, SENTINEL.x1],
+      yDomain: [SENTINEL.y0, SENTINEL.y1],
+      items,
+      colors,
+      dashes,
+    });
     text = JSON.stringify(compile(vl as never, { logger: silent }).spec);
     compiled.set(key, text);
   }
@@ -57,7 +66,10 @@ function vegaSpecFor(m: PlotModel): vega.Spec {
     .replaceAll(String(SENTINEL.y0), String(t.yDomain[0]))
     .replaceAll(String(SENTINEL.y1), String(t.yDomain[1]));
   t.items.forEach((item, i) => {
-    text = text.replaceAll(`@@item${i}@@`, str(item)).replaceAll(`@@color${i}@@`, str(t.colors[i])).replaceAll(`[${DASH_SENTINEL + i},1]`, JSON.stringify(t.dashes[i]));
+    text = text
+      .replaceAll(`@@item${i}@@`, str(item))
+      .replaceAll(`@@color${i}@@`, str(t.colors[i]))
+      .replaceAll(`[${DASH_SENTINEL + i},1]`, JSON.stringify(t.dashes[i]));
   });
   return JSON.parse(text) as vega.Spec;
 }
@@ -99,9 +111,18 @@ function signalSpec(shape: PlotShape): vega.Spec | null {
     .replaceAll(`[${SENTINEL.y0},${SENTINEL.y1}]`, '{"signal":"sb_yDomain"}');
   if (n > 0) {
     text = text
-      .replaceAll(list((i) => `"@@item${i}@@"`), '{"signal":"sb_items"}')
-      .replaceAll(list((i) => `"@@color${i}@@"`), '{"signal":"sb_colors"}')
-      .replaceAll(list((i) => `[${DASH_SENTINEL + i},1]`), '{"signal":"sb_dashes"}');
+      .replaceAll(
+        list((i) => `"@@item${i}@@"`),
+        '{"signal":"sb_items"}',
+      )
+      .replaceAll(
+        list((i) => `"@@color${i}@@"`),
+        '{"signal":"sb_colors"}',
+      )
+      .replaceAll(
+        list((i) => `[${DASH_SENTINEL + i},1]`),
+        '{"signal":"sb_dashes"}',
+      );
   }
   if (/@@|987654321|12345678900000|23456789000000|98765\d/.test(text)) return null;
   const spec = JSON.parse(text) as vega.Spec & { signals?: object[] };
@@ -134,7 +155,10 @@ async function drawSvg(m: PlotModel): Promise<string> {
         .signal('sb_yDomain', [...t.yDomain])
         .signal('sb_items', [...t.items])
         .signal('sb_colors', [...t.colors])
-        .signal('sb_dashes', t.dashes.map((d) => [...d]))
+        .signal(
+          'sb_dashes',
+          t.dashes.map((d) => [...d]),
+        )
     : new vega.View(vega.parse(vegaSpecFor(m)), { renderer: 'none' });
   for (const [name, rows] of Object.entries(plotData(m))) view.data(name, rows as object[]);
   await view.runAsync();
@@ -147,8 +171,7 @@ async function drawSvg(m: PlotModel): Promise<string> {
 export async function renderPlot(m: PlotModel, idPrefix = ''): Promise<string> {
   const svg = await drawSvg(m);
   const id = `${idPrefix}${m.id}`;
-  return localIds(svg, id).replace(
-    /^<svg /,
-    `<svg role="img" aria-labelledby="${id}-title ${id}-desc" data-plot="${escapeMarkup(m.id)}" `,
-  ).replace(/(<svg[^>]*>)/, `$1<title id="${id}-title">${escapeMarkup(m.title)}</title><desc id="${id}-desc">${escapeMarkup(m.description)}</desc>`);
+  return localIds(svg, id)
+    .replace(/^<svg /, `<svg role="img" aria-labelledby="${id}-title ${id}-desc" data-plot="${escapeMarkup(m.id)}" `)
+    .replace(/(<svg[^>]*>)/, `$1<title id="${id}-title">${escapeMarkup(m.title)}</title><desc id="${id}-desc">${escapeMarkup(m.description)}</desc>`);
 }

@@ -16,10 +16,13 @@ const X_ARCS = [0.2, 0.5, 1, 2, 5];
 export function smithGrid(): Array<{ x: number; y: number; curve: string; k: number }> {
   const out: Array<{ x: number; y: number; curve: string; k: number }> = [];
   const circle = (cx: number, cy: number, r: number, name: string, inside: (x: number, y: number) => boolean) => {
-    let k = 0, part = 0, was = false;
+    let k = 0,
+      part = 0,
+      was = false;
     for (let i = 0; i <= 360; i++) {
       const a = (i * Math.PI) / 180;
-      const x = cx + r * Math.cos(a), y = cy + r * Math.sin(a);
+      const x = cx + r * Math.cos(a),
+        y = cy + r * Math.sin(a);
       const ok = inside(x, y);
       if (ok && !was) part++;
       if (ok) out.push({ x, y, curve: `${name}-${part}`, k: k++ });
@@ -35,10 +38,13 @@ export function smithGrid(): Array<{ x: number; y: number; curve: string; k: num
   return out;
 }
 
-
-
 export function smithSpecOf(shape: PlotShape, t: PlotTexts): Record<string, unknown> {
-  const axis = (title: string, domain: readonly [number, number]) => ({ type: 'quantitative', title, scale: { domain: [...domain], nice: false, zero: false }, axis: { grid: false, tickCount: 5 } });
+  const axis = (title: string, domain: readonly [number, number]) => ({
+    type: 'quantitative',
+    title,
+    scale: { domain: [...domain], nice: false, zero: false },
+    axis: { grid: false, tickCount: 5 },
+  });
   const x = { field: 'x', ...axis(t.xTitle, t.xDomain) };
   const y = { field: 'y', ...axis(t.yTitle, t.yDomain) };
   const color = { field: 'item', type: 'nominal', legend: null, scale: { domain: [...t.items], range: [...t.colors] } };

@@ -24,7 +24,9 @@ import type { PlotModel, TracePoint } from './model.js';
 export const SMITH_POINTS = 400;
 export function buildSmith(part: NormalizedPart, units: readonly UnitData[], def: PlotDef, index: number): PlotModel | null {
   const ports = units[0]?.network.ports ?? 0;
-  const params = (def.on ?? ['S11']).map(parseParameter).flatMap((p) => (p.ok && p.value.to === p.value.from && p.value.to <= ports && !p.value.mode ? [p.value] : []));
+  const params = (def.on ?? ['S11'])
+    .map(parseParameter)
+    .flatMap((p) => (p.ok && p.value.to === p.value.from && p.value.to <= ports && !p.value.mode ? [p.value] : []));
   if (!params.length) return null;
   const items = params.map(parameterName);
   const traces: TracePoint[] = [];

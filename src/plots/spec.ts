@@ -10,7 +10,12 @@ import { smithGrid, smithSpecOf } from './smith-spec.js';
 import { PLOT_CONFIG, titleOf } from './style.js';
 
 export const PALETTE = ['#1f4e8c', '#b5651d', '#2e7d5b', '#6d4a99'] as const;
-export const DASHES: ReadonlyArray<readonly number[]> = [[1, 0], [7, 3], [2, 2], [9, 3, 2, 3]];
+export const DASHES: ReadonlyArray<readonly number[]> = [
+  [1, 0],
+  [7, 3],
+  [2, 2],
+  [9, 3, 2, 3],
+];
 export const LIMIT_FILL = '#c0392b';
 export const ENVELOPE_OPACITY = 0.18;
 
@@ -40,8 +45,23 @@ export interface PlotShape {
   readonly smith: boolean;
 }
 
-export const shapeOf = (m: PlotModel): PlotShape => ({ downward: m.downward, itemCount: m.items.length, several: m.measurementCount > 1, seriesEdges: m.seriesEdges.length > 0, smith: m.kind === 'smith' });
-export const textsOf = (m: PlotModel): PlotTexts => ({ title: m.title, xTitle: m.xTitle, yTitle: m.yTitle, xDomain: m.xDomain, yDomain: m.yDomain, items: m.items, colors: m.colors, dashes: m.dashes });
+export const shapeOf = (m: PlotModel): PlotShape => ({
+  downward: m.downward,
+  itemCount: m.items.length,
+  several: m.measurementCount > 1,
+  seriesEdges: m.seriesEdges.length > 0,
+  smith: m.kind === 'smith',
+});
+export const textsOf = (m: PlotModel): PlotTexts => ({
+  title: m.title,
+  xTitle: m.xTitle,
+  yTitle: m.yTitle,
+  xDomain: m.xDomain,
+  yDomain: m.yDomain,
+  items: m.items,
+  colors: m.colors,
+  dashes: m.dashes,
+});
 
 /** The Vega-Lite spec of a plot. */
 export function plotSpec(m: PlotModel): Record<string, unknown> {
@@ -95,7 +115,13 @@ export function specOf(shape: PlotShape, t: PlotTexts): Record<string, unknown> 
       data: { name: 'seriesEdges' },
       mark: { type: 'rule', strokeWidth: 2.4, clip: true },
       // colour and dash come with each edge (scale null: the values are used as they are)
-      encoding: { x: { ...x, field: 'x0' }, x2: { field: 'x1' }, y: { ...y, field: 'y' }, color: { field: 'color', type: 'nominal', scale: null, legend: null }, strokeDash: { field: 'dash', type: 'nominal', scale: null, legend: null } },
+      encoding: {
+        x: { ...x, field: 'x0' },
+        x2: { field: 'x1' },
+        y: { ...y, field: 'y' },
+        color: { field: 'color', type: 'nominal', scale: null, legend: null },
+        strokeDash: { field: 'dash', type: 'nominal', scale: null, legend: null },
+      },
     });
   }
   return {

@@ -18,7 +18,11 @@ export async function writeSite(content: string, catalog: Catalog, outDir: strin
   for (let i = 0; i < parts.length; i += batch) {
     const slice = parts.slice(i, i + batch);
     const slugs = new Set(slice.map((p) => p.slug));
-    await writeRun(content, { ...catalog, pages: { parts: slice, reports: reports.filter((p) => slugs.has(p.slug)), comparisons: i === 0 ? comparisons : [] } }, outDir);
+    await writeRun(
+      content,
+      { ...catalog, pages: { parts: slice, reports: reports.filter((p) => slugs.has(p.slug)), comparisons: i === 0 ? comparisons : [] } },
+      outDir,
+    );
   }
 }
 
@@ -43,7 +47,10 @@ async function writeRun(content: string, catalog: Catalog, outDir: string): Prom
     await elev.init();
     // Eleventy's timing notes ("[11ty] Benchmark … Transform" on a slow machine) come from benchmark groups made
     // before quiet mode applies; they are Eleventy's notes to its developers, not to scatterbook's users
-    const groups = (elev as unknown as { config?: { benchmarkManager?: { getAll(): Record<string, { setIsVerbose(v: boolean): void }> } } }).config?.benchmarkManager?.getAll() ?? {};
+    const groups =
+      (
+        elev as unknown as { config?: { benchmarkManager?: { getAll(): Record<string, { setIsVerbose(v: boolean): void }> } } }
+      ).config?.benchmarkManager?.getAll() ?? {};
     for (const g of Object.values(groups)) g.setIsVerbose(false);
     await elev.write();
     await new Promise((r) => setImmediate(r));

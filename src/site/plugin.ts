@@ -19,7 +19,7 @@ import type { Catalog } from '../model/catalog.js';
 export const PACKAGE_ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '../..');
 export const PAGES_DIR = join(PACKAGE_ROOT, 'src/site/pages');
 export const INCLUDES_DIR = join(PACKAGE_ROOT, 'src/site/_includes');
-export const ASSETS_DIR = join(PACKAGE_ROOT, 'src/site/assets');
+const ASSETS_DIR = join(PACKAGE_ROOT, 'src/site/assets');
 
 /** The typeface travels with the project (the npm package @fontsource/inter, SIL Open Font License), so pages and PDFs look alike everywhere. */
 export const FONT_WEIGHTS = [400, 600, 700] as const;
@@ -29,7 +29,9 @@ export const FONT_SUBSETS = ['latin', 'greek'] as const;
 
 export function fontFiles(): Array<{ from: string; to: string }> {
   const dir = join(dirname(createRequire(import.meta.url).resolve('@fontsource/inter/package.json')), 'files');
-  return FONT_SUBSETS.flatMap((subset) => FONT_WEIGHTS.map((w) => ({ from: join(dir, `inter-${subset}-${w}-normal.woff2`), to: `assets/fonts/inter-${subset}-${w}-normal.woff2` })));
+  return FONT_SUBSETS.flatMap((subset) =>
+    FONT_WEIGHTS.map((w) => ({ from: join(dir, `inter-${subset}-${w}-normal.woff2`), to: `assets/fonts/inter-${subset}-${w}-normal.woff2` })),
+  );
 }
 
 export interface SitePluginOptions {
@@ -43,7 +45,9 @@ const UNIT_AFTER_NUMBER = /(\d) (?=(?:dBm|dBc|dB|GHz|MHz|kHz|Hz|ns|ps|µs|us|ms|
 
 /** HTML with a no-break space between each number and the unit after it, in text only: never inside a tag (attributes keep their values) or a script. */
 export function noBreakUnits(html: string): string {
-  return html.replace(/(<script\b[\s\S]*?<\/script>)|(<[^>]*>)|([^<]+)/g, (all, script, tag, text) => (text ? text.replace(UNIT_AFTER_NUMBER, '$1\u00a0') : all));
+  return html.replace(/(<script\b[\s\S]*?<\/script>)|(<[^>]*>)|([^<]+)/g, (all, script, tag, text) =>
+    text ? text.replace(UNIT_AFTER_NUMBER, '$1\u00a0') : all,
+  );
 }
 
 export function templateSearchPath(content: string): string[] {
@@ -66,7 +70,9 @@ export function scatterbookSite(config: UserConfig, options: SitePluginOptions):
   const catalog = () => (resolved ??= typeof options.catalog === 'function' ? options.catalog() : Promise.resolve(options.catalog));
   config.addGlobalData('catalog', catalog);
   // a number and its unit never part at a line end: "2.45 GHz", "1.2 dB", "25 °C", "50 Ω" get a no-break space
-  config.addTransform('number-unit-no-break', (content: string, outputPath: string) => (typeof outputPath === 'string' && outputPath.endsWith('.html') ? noBreakUnits(content) : content));
+  config.addTransform('number-unit-no-break', (content: string, outputPath: string) =>
+    typeof outputPath === 'string' && outputPath.endsWith('.html') ? noBreakUnits(content) : content,
+  );
   config.addPassthroughCopy({ [ASSETS_DIR]: 'assets' });
   for (const f of fontFiles()) config.addPassthroughCopy({ [f.from]: f.to });
   // the vendor's assets: regular files only, never a link out of the content folder (see io/assets.ts)
@@ -77,7 +83,9 @@ export function scatterbookSite(config: UserConfig, options: SitePluginOptions):
     if (plan.errors.length) throw new Error(plan.errors.join('\n'));
     copyAssets(plan, out);
     // the measured Touchstone files the datasheets link ("S-parameter data"), unless site.yaml keeps them out
-    const files = (await catalog()).pages.parts.flatMap((p) => [...p.dataFiles, ...p.releasedFiles].map((d) => ({ from: join(options.content, d.from), to: d.url })));
+    const files = (await catalog()).pages.parts.flatMap((p) =>
+      [...p.dataFiles, ...p.releasedFiles].map((d) => ({ from: join(options.content, d.from), to: d.url })),
+    );
     copyAssets({ files, errors: [] }, out);
   });
   // Eleventy reads watch targets relative to the working folder

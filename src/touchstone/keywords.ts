@@ -25,9 +25,19 @@ export interface HeaderState {
 export type KeywordAction = 'header' | 'information' | 'network-data' | 'noise-data' | 'end';
 
 export const KEYWORDS = [
-  '[Version]', '[Number of Ports]', '[Two-Port Data Order]', '[Number of Frequencies]',
-  '[Number of Noise Frequencies]', '[Reference]', '[Matrix Format]', '[Mixed-Mode Order]',
-  '[Begin Information]', '[End Information]', '[Network Data]', '[Noise Data]', '[End]',
+  '[Version]',
+  '[Number of Ports]',
+  '[Two-Port Data Order]',
+  '[Number of Frequencies]',
+  '[Number of Noise Frequencies]',
+  '[Reference]',
+  '[Matrix Format]',
+  '[Mixed-Mode Order]',
+  '[Begin Information]',
+  '[End Information]',
+  '[Network Data]',
+  '[Noise Data]',
+  '[End]',
 ] as const;
 
 function positiveInteger(rest: string, name: string, line: number): number {
@@ -77,7 +87,8 @@ export function parseKeyword(text: string, line: number, h: HeaderState, phase: 
       const values: number[] = [];
       for (const t of tokenize(rest, restColumn)) {
         const v = Number(t.text);
-        if (!/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(t.text)) fail('keyword-value', line, `"${t.text}" in [Reference] is not a number; expected one reference resistance in ohms per port`, t.column);
+        if (!/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(t.text))
+          fail('keyword-value', line, `"${t.text}" in [Reference] is not a number; expected one reference resistance in ohms per port`, t.column);
         if (!(v > 0) || !Number.isFinite(v)) fail('keyword-value', line, `[Reference] value ${t.text} must be a positive number of ohms`, t.column);
         values.push(v);
       }
@@ -99,9 +110,11 @@ export function parseKeyword(text: string, line: number, h: HeaderState, phase: 
       if (h.ports === null) fail('keyword-order', line, '[Mixed-Mode Order] must follow [Number of Ports]');
       const tokens = tokenize(rest, restColumn);
       for (const t of tokens) {
-        if (!/^([DC]\d+,\d+|S\d+)$/i.test(t.text)) fail('keyword-value', line, `"${t.text}" in [Mixed-Mode Order] is not a mode descriptor; expected Da,b, Ca,b or Sa (e.g. D1,2 C1,2 S3)`, t.column);
+        if (!/^([DC]\d+,\d+|S\d+)$/i.test(t.text))
+          fail('keyword-value', line, `"${t.text}" in [Mixed-Mode Order] is not a mode descriptor; expected Da,b, Ca,b or Sa (e.g. D1,2 C1,2 S3)`, t.column);
       }
-      if (tokens.length !== h.ports) fail('keyword-value', line, `[Mixed-Mode Order] lists ${tokens.length} descriptors for ${h.ports} ports; expected one per port`);
+      if (tokens.length !== h.ports)
+        fail('keyword-value', line, `[Mixed-Mode Order] lists ${tokens.length} descriptors for ${h.ports} ports; expected one per port`);
       h.mixedModeOrder = tokens.map((t) => t.text.toUpperCase());
       return 'header';
     }

@@ -21,7 +21,13 @@ export interface Layout {
 /** The (row, column) pairs in file order, 0-based. */
 export function entryOrder(ports: number, format: MatrixFormat, twoPortOrder: TwoPortOrder): Array<[number, number]> {
   const out: Array<[number, number]> = [];
-  if (ports === 2 && format === 'full' && twoPortOrder === '21_12') return [[0, 0], [1, 0], [0, 1], [1, 1]];
+  if (ports === 2 && format === 'full' && twoPortOrder === '21_12')
+    return [
+      [0, 0],
+      [1, 0],
+      [0, 1],
+      [1, 1],
+    ];
   for (let i = 0; i < ports; i++) {
     const from = format === 'upper' ? i : 0;
     const to = format === 'lower' ? i : ports - 1;

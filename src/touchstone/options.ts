@@ -55,9 +55,15 @@ export function parseOptionLine(text: string, line: number, column: number): Opt
         resistance.push(v);
       }
       if (resistance.length === 0 && tokens[i + 1]?.text.startsWith('(')) {
-        fail('option-value', line, `R ${tokens[i + 1].text} is a complex reference impedance, which Touchstone does not have; expected a positive real number of ohms (e.g. "R 50")`, tokens[i + 1].column);
+        fail(
+          'option-value',
+          line,
+          `R ${tokens[i + 1].text} is a complex reference impedance, which Touchstone does not have; expected a positive real number of ohms (e.g. "R 50")`,
+          tokens[i + 1].column,
+        );
       }
-      if (resistance.length === 0) fail('option-value', line, 'R on the option line must be followed by the reference resistance in ohms (e.g. "R 50")', t.column);
+      if (resistance.length === 0)
+        fail('option-value', line, 'R on the option line must be followed by the reference resistance in ohms (e.g. "R 50")', t.column);
     } else {
       const hint = /^R\d/i.test(t.text) ? ` (write "R ${t.text.slice(1)}" with a space)` : '';
       fail(

@@ -55,8 +55,10 @@ const MAX_COMMENTS = 200;
  */
 export function sniff(b: Uint8Array): string | 'bom' | 'cr-only' | null {
   if (b.length >= 2 && b[0] === 0x1f && b[1] === 0x8b) return 'the file is gzip-compressed, not text; unpack it first (gunzip) and read the .sNp file inside';
-  if (b.length >= 4 && b[0] === 0x50 && b[1] === 0x4b && b[2] === 3 && b[3] === 4) return 'the file is a ZIP archive, not text; unpack it first and read the .sNp file inside';
-  if (b.length >= 2 && ((b[0] === 0xff && b[1] === 0xfe) || (b[0] === 0xfe && b[1] === 0xff))) return 'the file is UTF-16 text (it starts with a UTF-16 byte-order mark); save it as UTF-8 or ASCII';
+  if (b.length >= 4 && b[0] === 0x50 && b[1] === 0x4b && b[2] === 3 && b[3] === 4)
+    return 'the file is a ZIP archive, not text; unpack it first and read the .sNp file inside';
+  if (b.length >= 2 && ((b[0] === 0xff && b[1] === 0xfe) || (b[0] === 0xfe && b[1] === 0xff)))
+    return 'the file is UTF-16 text (it starts with a UTF-16 byte-order mark); save it as UTF-8 or ASCII';
   const head = b.subarray(0, Math.min(b.length, 4096));
   // UTF-16 without a mark: every other byte of ASCII text is zero
   let zeros = 0;
@@ -67,7 +69,8 @@ export function sniff(b: Uint8Array): string | 'bom' | 'cr-only' | null {
     const c = head[i];
     if (c < 32 && c !== 9 && c !== 10 && c !== 12 && c !== 13 && c !== 0) controls++;
   }
-  if (controls > 0 && controls >= head.length / 100) return `the file holds binary data (${controls} control bytes in its first ${head.length}); a Touchstone file is plain text`;
+  if (controls > 0 && controls >= head.length / 100)
+    return `the file holds binary data (${controls} control bytes in its first ${head.length}); a Touchstone file is plain text`;
   if (b.length >= 3 && b[0] === 0xef && b[1] === 0xbb && b[2] === 0xbf) return 'bom';
   if (b.indexOf(10) < 0 && b.indexOf(13) >= 0) return 'cr-only';
   return null;
@@ -146,7 +149,18 @@ export class TouchstoneParser {
 
   constructor(options: ParseOptions = {}) {
     this.opts = options;
-    this.header = { version: null, ports: null, twoPortOrder: null, frequencies: null, noiseFrequencies: null, reference: null, referenceLine: 0, matrixFormat: null, mixedModeOrder: null, pendingReference: false };
+    this.header = {
+      version: null,
+      ports: null,
+      twoPortOrder: null,
+      frequencies: null,
+      noiseFrequencies: null,
+      reference: null,
+      referenceLine: 0,
+      matrixFormat: null,
+      mixedModeOrder: null,
+      pendingReference: false,
+    };
   }
 
   /** Feeds the next chunk of bytes. The chunk is not kept: the caller may reuse it. */
@@ -279,7 +293,8 @@ export class TouchstoneParser {
       this.warnings.push({
         code: 'comment-impedance',
         line: this.line,
-        message: 'a comment mentions port impedances (as some simulators write); comments are not Touchstone data, so the references come from the option line or [Reference]',
+        message:
+          'a comment mentions port impedances (as some simulators write); comments are not Touchstone data, so the references come from the option line or [Reference]',
       });
     }
   }
@@ -312,7 +327,11 @@ export class TouchstoneParser {
   private optionLine(buf: Uint8Array, p: number, e: number): void {
     if (this.options) {
       if (this.phase !== 'network' && this.phase !== 'noise') {
-        this.warnings.push({ code: 'later-option-line', line: this.line, message: `only the first option line (line ${this.options.line}) counts; this one is ignored` });
+        this.warnings.push({
+          code: 'later-option-line',
+          line: this.line,
+          message: `only the first option line (line ${this.options.line}) counts; this one is ignored`,
+        });
       }
       return;
     }
@@ -362,7 +381,13 @@ export class TouchstoneParser {
       while (q < e && isBlank(buf[q])) q++;
       if (q >= e || buf[q] === 33) break;
       const v = scanNumber(buf, q, e);
-      if (scanEnd < 0) fail('keyword-value', this.line, `"${latin1(buf, q, -scanEnd - 1)}" in [Reference] is not a number; expected one reference resistance in ohms per port`, q - this.lineStart + 1);
+      if (scanEnd < 0)
+        fail(
+          'keyword-value',
+          this.line,
+          `"${latin1(buf, q, -scanEnd - 1)}" in [Reference] is not a number; expected one reference resistance in ohms per port`,
+          q - this.lineStart + 1,
+        );
       if (!(v > 0) || !Number.isFinite(v)) fail('keyword-value', this.line, `[Reference] value ${v} must be a positive number of ohms`, q - this.lineStart + 1);
       ref.push(v);
       if (ref.length > (this.header.ports as number)) {
@@ -386,7 +411,11 @@ export class TouchstoneParser {
       fail('option-value', opt.line, `the option line gives ${opt.resistance.length} R values for ${ports} ports; expected one, or one per port`);
     }
     if ((opt.parameter === 'H' || opt.parameter === 'G') && this.header.matrixFormat && this.header.matrixFormat !== 'full') {
-      fail('keyword-value', this.line, `[Matrix Format] ${this.header.matrixFormat} cannot hold ${opt.parameter}-parameters: their off-diagonal entries differ in sign even for a reciprocal network; expected Full`);
+      fail(
+        'keyword-value',
+        this.line,
+        `[Matrix Format] ${this.header.matrixFormat} cannot hold ${opt.parameter}-parameters: their off-diagonal entries differ in sign even for a reciprocal network; expected Full`,
+      );
     }
     this.ports = ports;
     const twoPortOrder = this.version === '1.1' ? '21_12' : this.header.twoPortOrder;
@@ -408,14 +437,24 @@ export class TouchstoneParser {
     if (h.ports === 2 && h.twoPortOrder === null) {
       // required by the standard, yet its own Example 20 goes without: read in version 1's order, which the omission implies
       h.twoPortOrder = '21_12';
-      this.warnings.push({ code: 'missing-two-port-order', line: this.line, message: 'a version 2 file with 2 ports must declare [Two-Port Data Order] before [Network Data]; read as 21_12 (N11 N21 N12 N22), the order of version 1' });
+      this.warnings.push({
+        code: 'missing-two-port-order',
+        line: this.line,
+        message:
+          'a version 2 file with 2 ports must declare [Two-Port Data Order] before [Network Data]; read as 21_12 (N11 N21 N12 N22), the order of version 1',
+      });
     }
     if (h.frequencies === null) fail('missing-keyword', this.line, '[Network Data] before [Number of Frequencies]; a version 2 file must declare it');
-    if (h.pendingReference) fail('keyword-value', this.line, `[Reference] holds ${(h.reference as number[]).length} values before [Network Data]; expected ${h.ports}, one per port`);
+    if (h.pendingReference)
+      fail('keyword-value', this.line, `[Reference] holds ${(h.reference as number[]).length} values before [Network Data]; expected ${h.ports}, one per port`);
     if (this.opts.fileName) {
       const fromName = portsFromFileName(this.opts.fileName);
       if (fromName !== null && fromName !== h.ports) {
-        this.warnings.push({ code: 'extension-mismatch', line: 0, message: `the extension says ${fromName} ports but [Number of Ports] says ${h.ports}; the keyword wins` });
+        this.warnings.push({
+          code: 'extension-mismatch',
+          line: 0,
+          message: `the extension says ${fromName} ports but [Number of Ports] says ${h.ports}; the keyword wins`,
+        });
       }
     }
     this.setUpStorage(h.ports, h.frequencies);
@@ -441,10 +480,18 @@ export class TouchstoneParser {
 
   private closeNoise(): void {
     if (this.noisePos !== 0) {
-      fail('value-count', this.noiseLine, `the noise point at line ${this.noiseLine} has ${this.noisePos} of its 5 values (frequency, NFmin dB, |Γopt|, ∠Γopt, Rn)`);
+      fail(
+        'value-count',
+        this.noiseLine,
+        `the noise point at line ${this.noiseLine} has ${this.noisePos} of its 5 values (frequency, NFmin dB, |Γopt|, ∠Γopt, Rn)`,
+      );
     }
     if (this.version !== '1.1' && this.noiseCount !== this.header.noiseFrequencies) {
-      fail('noise-count', this.line, `[Number of Noise Frequencies] declares ${this.header.noiseFrequencies} points, but the noise data hold ${this.noiseCount}`);
+      fail(
+        'noise-count',
+        this.line,
+        `[Number of Noise Frequencies] declares ${this.header.noiseFrequencies} points, but the noise data hold ${this.noiseCount}`,
+      );
     }
   }
 
@@ -487,7 +534,12 @@ export class TouchstoneParser {
       if (p >= e || buf[p] === 33) break;
       if (ended) {
         this.pos = pos;
-        fail('value-count', this.line, `more values on this line than one point holds: ${this.describePoint()}; each point starts on a new line`, p - lineStart + 1);
+        fail(
+          'value-count',
+          this.line,
+          `more values on this line than one point holds: ${this.describePoint()}; each point starts on a new line`,
+          p - lineStart + 1,
+        );
       }
       if (pos === 0) {
         const f = scanNumber(buf, p, e, this.freqExp);
@@ -502,11 +554,22 @@ export class TouchstoneParser {
             return;
           }
           if (f === this.lastFreq) {
-            fail('duplicate-frequency', this.line, `frequency ${fmtHz(f)} appears twice, at lines ${this.lastFreqLine} and ${this.line}; each frequency must be given once`, p - lineStart + 1);
+            fail(
+              'duplicate-frequency',
+              this.line,
+              `frequency ${fmtHz(f)} appears twice, at lines ${this.lastFreqLine} and ${this.line}; each frequency must be given once`,
+              p - lineStart + 1,
+            );
           }
-          fail('frequency-order', this.line, `frequency ${fmtHz(f)} is below the previous one (${fmtHz(this.lastFreq)}, line ${this.lastFreqLine}); network frequencies must increase`, p - lineStart + 1);
+          fail(
+            'frequency-order',
+            this.line,
+            `frequency ${fmtHz(f)} is below the previous one (${fmtHz(this.lastFreq)}, line ${this.lastFreqLine}); network frequencies must increase`,
+            p - lineStart + 1,
+          );
         }
-        if (!(f >= 0) || !Number.isFinite(f)) fail('number-range', this.line, `frequency ${latin1(buf, p, scanEnd)} must be a finite number ≥ 0`, p - lineStart + 1);
+        if (!(f >= 0) || !Number.isFinite(f))
+          fail('number-range', this.line, `frequency ${latin1(buf, p, scanEnd)} must be a finite number ≥ 0`, p - lineStart + 1);
         const freq = this.freq as Column;
         if (this.version !== '1.1' && this.count >= (this.header.frequencies as number)) {
           fail('frequency-count', this.line, `more points than [Number of Frequencies] declares (${this.header.frequencies})`);
@@ -530,9 +593,15 @@ export class TouchstoneParser {
       const pair = r >> 1;
       const part = r & 1;
       if (part === 0 && this.magnitudeCheck && v < 0) {
-        fail('negative-magnitude', this.line, `magnitude ${latin1(buf, p, scanEnd)} is negative; in MA format the first number of each pair is a magnitude ≥ 0`, p - lineStart + 1);
+        fail(
+          'negative-magnitude',
+          this.line,
+          `magnitude ${latin1(buf, p, scanEnd)} is negative; in MA format the first number of each pair is a magnitude ≥ 0`,
+          p - lineStart + 1,
+        );
       }
-      if (v !== v || v === Infinity || v === -Infinity) fail('number-range', this.line, `${latin1(buf, p, scanEnd)} is out of the range of a double`, p - lineStart + 1);
+      if (v !== v || v === Infinity || v === -Infinity)
+        fail('number-range', this.line, `${latin1(buf, p, scanEnd)} is out of the range of a double`, p - lineStart + 1);
       vals[at + place[pair] + part] = v;
       const m = mirror[pair];
       if (m >= 0) vals[at + m + part] = v;
@@ -576,12 +645,20 @@ export class TouchstoneParser {
   private describePoint(): string {
     const n = this.ports;
     const pairs = (this.layout as Layout).place.length;
-    const order = n === 2 && this.version === '1.1' ? ' in the order N11 N21 N12 N22' : n === 2 && this.header.twoPortOrder ? ` in the order of [Two-Port Data Order] ${this.header.twoPortOrder}` : '';
+    const order =
+      n === 2 && this.version === '1.1'
+        ? ' in the order N11 N21 N12 N22'
+        : n === 2 && this.header.twoPortOrder
+          ? ` in the order of [Two-Port Data Order] ${this.header.twoPortOrder}`
+          : '';
     return `a ${n}-port point holds ${this.recordSize} values (the frequency and ${pairs} pairs${order})`;
   }
 
   private incompletePoint(): never {
-    const hint = this.ports === 2 && this.version === '1.1' && this.pos === 5 ? '; if these are noise parameters, they must start at a frequency not above the last network frequency' : '';
+    const hint =
+      this.ports === 2 && this.version === '1.1' && this.pos === 5
+        ? '; if these are noise parameters, they must start at a frequency not above the last network frequency'
+        : '';
     fail('value-count', this.pointLine, `the point that starts at line ${this.pointLine} has ${this.pos} values; ${this.describePoint()}${hint}`);
   }
 
@@ -599,8 +676,16 @@ export class TouchstoneParser {
       let end = from;
       while (end < buf.length && buf[end] !== 10 && buf[end] !== 13 && end - from < 60) end++;
       const text = latin1(buf, from, end).trim();
-      const cut = this.pos > 0 ? `; the point that starts at line ${this.pointLine} has ${this.pos} of its ${this.recordSize} values, so the data end here cut short` : '';
-      fail('bad-number', this.line, `this line is text, not data ("${text}${end - from >= 60 ? '…' : ''}"); a comment starts with "!"${cut}`, from - lineStart + 1);
+      const cut =
+        this.pos > 0
+          ? `; the point that starts at line ${this.pointLine} has ${this.pos} of its ${this.recordSize} values, so the data end here cut short`
+          : '';
+      fail(
+        'bad-number',
+        this.line,
+        `this line is text, not data ("${text}${end - from >= 60 ? '…' : ''}"); a comment starts with "!"${cut}`,
+        from - lineStart + 1,
+      );
     }
     fail('bad-number', this.line, `"${latin1(buf, from, to)}" is not a number; expected a value such as 0.5, -12.25 or 1.5e-3`, from - lineStart + 1);
   }
@@ -611,7 +696,13 @@ export class TouchstoneParser {
     while (true) {
       while (p < e && isBlank(buf[p])) p++;
       if (p >= e || buf[p] === 33) break;
-      if (ended) fail('value-count', this.line, 'more values on this line than one noise point holds (frequency, NFmin dB, |Γopt|, ∠Γopt, Rn); each point starts on a new line', p - lineStart + 1);
+      if (ended)
+        fail(
+          'value-count',
+          this.line,
+          'more values on this line than one noise point holds (frequency, NFmin dB, |Γopt|, ∠Γopt, Rn); each point starts on a new line',
+          p - lineStart + 1,
+        );
       const k = this.noisePos;
       const v = scanNumber(buf, p, e, k === 0 ? this.freqExp : 0);
       if (scanEnd < 0) this.badNumber(buf, p, -scanEnd - 1, lineStart);
@@ -620,7 +711,13 @@ export class TouchstoneParser {
         if (this.version !== '1.1' && this.noiseCount >= (this.header.noiseFrequencies as number)) {
           fail('noise-count', this.line, `more noise points than [Number of Noise Frequencies] declares (${this.header.noiseFrequencies})`);
         }
-        if (!(v > this.noiseLastFreq)) fail('frequency-order', this.line, `noise frequency ${fmtHz(v)} does not increase (line ${this.noiseLine} had ${fmtHz(this.noiseLastFreq)})`, p - lineStart + 1);
+        if (!(v > this.noiseLastFreq))
+          fail(
+            'frequency-order',
+            this.line,
+            `noise frequency ${fmtHz(v)} does not increase (line ${this.noiseLine} had ${fmtHz(this.noiseLastFreq)})`,
+            p - lineStart + 1,
+          );
         this.noiseLastFreq = v;
         this.noiseLine = this.line;
         if (this.noiseCount >= cols[0].data.length) for (const col of cols) col.grow(this.noiseCount + 1);
@@ -640,14 +737,23 @@ export class TouchstoneParser {
   private complete(): TouchstoneRecord {
     if (this.phase === 'start' || (this.phase === 'v1' && !this.layout)) {
       if (this.bytesSeen === 0) fail('no-data', 0, 'the file is empty (0 bytes); expected a Touchstone file ("# GHz S MA R 50" followed by the data)');
-      if (!this.options) fail('missing-option-line', 0, `the file holds no option line and no data (it ends at line ${this.line}); expected a Touchstone file ("# GHz S MA R 50" followed by the data)`);
+      if (!this.options)
+        fail(
+          'missing-option-line',
+          0,
+          `the file holds no option line and no data (it ends at line ${this.line}); expected a Touchstone file ("# GHz S MA R 50" followed by the data)`,
+        );
       fail('no-data', 0, `the file holds no network data: it ends at line ${this.line}, and nothing after the option line (line ${this.options.line}) is data`);
     }
     if (this.phase === 'header' || this.phase === 'information') fail('missing-keyword', 0, 'the version 2 file has no [Network Data]');
     if (this.phase === 'network') {
       const declared = this.header.frequencies as number;
       if (this.version !== '1.1' && this.count + (this.pos > 0 ? 1 : 0) < declared) {
-        fail('frequency-count', 0, `the file ends at line ${this.line}, without [End], after ${this.count} of the ${declared} points [Number of Frequencies] declares${this.pos ? ` and ${this.pos} of the ${this.recordSize} values of the next` : ''}: it looks cut short`);
+        fail(
+          'frequency-count',
+          0,
+          `the file ends at line ${this.line}, without [End], after ${this.count} of the ${declared} points [Number of Frequencies] declares${this.pos ? ` and ${this.pos} of the ${this.recordSize} values of the next` : ''}: it looks cut short`,
+        );
       }
       if (this.version === '1.1') {
         if (this.pos !== 0) this.incompletePoint();
@@ -658,22 +764,32 @@ export class TouchstoneParser {
     if (this.version !== '1.1') {
       // the counts of [Number of Frequencies] (and of noise frequencies) held, so the data are whole without these
       if (this.header.noiseFrequencies !== null && !this.noise) {
-        this.warnings.push({ code: 'missing-noise-data', line: 0, message: `[Number of Noise Frequencies] declares ${this.header.noiseFrequencies} noise points, but the file has no [Noise Data]; read without noise parameters` });
+        this.warnings.push({
+          code: 'missing-noise-data',
+          line: 0,
+          message: `[Number of Noise Frequencies] declares ${this.header.noiseFrequencies} noise points, but the file has no [Noise Data]; read without noise parameters`,
+        });
       }
-      if (this.phase !== 'end') this.warnings.push({ code: 'missing-end', line: 0, message: `the version 2 file ends at line ${this.line} without [End], which the standard requires; its data hold the ${this.count} points [Number of Frequencies] declares, so they are read` });
+      if (this.phase !== 'end')
+        this.warnings.push({
+          code: 'missing-end',
+          line: 0,
+          message: `the version 2 file ends at line ${this.line} without [End], which the standard requires; its data hold the ${this.count} points [Number of Frequencies] declares, so they are read`,
+        });
     }
     const opt = this.options as OptionLine;
     const n = this.ports;
     const ref = this.header.reference ?? (opt.resistance.length === n ? opt.resistance : Array(n).fill(opt.resistance[0] ?? 50));
-    const noise = this.noise && this.noiseCount > 0
-      ? {
-          freqHz: this.noise[0].take(this.noiseCount),
-          nfMinDb: this.noise[1].take(this.noiseCount),
-          gammaOptMag: this.noise[2].take(this.noiseCount),
-          gammaOptDeg: this.noise[3].take(this.noiseCount),
-          rn: this.noise[4].take(this.noiseCount),
-        }
-      : null;
+    const noise =
+      this.noise && this.noiseCount > 0
+        ? {
+            freqHz: this.noise[0].take(this.noiseCount),
+            nfMinDb: this.noise[1].take(this.noiseCount),
+            gammaOptMag: this.noise[2].take(this.noiseCount),
+            gammaOptDeg: this.noise[3].take(this.noiseCount),
+            rn: this.noise[4].take(this.noiseCount),
+          }
+        : null;
     return {
       version: this.version,
       ports: n,
@@ -690,7 +806,6 @@ export class TouchstoneParser {
       information: this.information,
     };
   }
-
 }
 
 function isBlank(c: number): boolean {

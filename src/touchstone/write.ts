@@ -120,7 +120,9 @@ export function writeTouchstone(net: Network, options: WriteOptions = {}): strin
   const matrixFormat = v1 ? 'full' : (options.matrixFormat ?? 'full');
   const n = net.ports;
   if (matrixFormat !== 'full' && (parameter === 'H' || parameter === 'G')) {
-    throw new TouchstoneWriteError(`${parameter}-parameters are written Full: even for a reciprocal network the off-diagonal entries differ in sign (${parameter.toLowerCase()}12 = −${parameter.toLowerCase()}21)`);
+    throw new TouchstoneWriteError(
+      `${parameter}-parameters are written Full: even for a reciprocal network the off-diagonal entries differ in sign (${parameter.toLowerCase()}12 = −${parameter.toLowerCase()}21)`,
+    );
   }
   const order2 = v1 ? '21_12' : (options.twoPortOrder ?? '12_21');
   const uniform = net.z0.every((r) => r === net.z0[0]);
@@ -130,7 +132,9 @@ export function writeTouchstone(net: Network, options: WriteOptions = {}): strin
   if (noise && n !== 2) throw new TouchstoneWriteError('noise parameters belong to 2-ports only');
   const k = net.freqHz.length;
   if (v1 && noise && noise.freqHz.length > 0 && k > 0 && noise.freqHz[0] > net.freqHz[k - 1]) {
-    throw new TouchstoneWriteError('in version 1 the noise block must start at a frequency not above the last network frequency, or it would read as network data');
+    throw new TouchstoneWriteError(
+      'in version 1 the noise block must start at a frequency not above the last network frequency, or it would read as network data',
+    );
   }
   const data = parameterData(net, parameter, v1);
   const num = numberText(options.significantDigits);
@@ -186,7 +190,8 @@ export function writeTouchstone(net: Network, options: WriteOptions = {}): strin
     if (!v1) lines.push('[Noise Data]');
     const r = net.z0[0];
     for (let q = 0; q < noise.freqHz.length; q++) {
-      const re = noise.gammaOpt[2 * q], im = noise.gammaOpt[2 * q + 1];
+      const re = noise.gammaOpt[2 * q],
+        im = noise.gammaOpt[2 * q + 1];
       const mag = Math.hypot(re, im);
       const ang = mag === 0 ? 0 : (Math.atan2(im, re) * 180) / Math.PI;
       const rn = v1 ? noise.rnOhms[q] / r : noise.rnOhms[q];

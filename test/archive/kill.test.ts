@@ -65,26 +65,46 @@ describe.skipIf(!haveBrowser)('SIGKILL during a build with PDFs', () => {
   const moments: Array<[string, () => boolean]> = [
     ['while it reads the parts', () => true],
     ['once its staging folder exists', () => readdirSync(dir).some((n) => n.startsWith('.site.building-'))],
-    ['while the browser prints', () => readdirSync(dir).filter((n) => n.startsWith('.site.building-')).some((n) => existsSync(join(dir, n, 'parts/vt-amp-0560')) && readdirSync(join(dir, n, 'parts/vt-amp-0560')).some((f) => f.endsWith('.pdf')))],
-    ['as it prints its last PDF (the comparison)', () => readdirSync(dir).filter((n) => n.startsWith('.site.building-')).some((n) => existsSync(join(dir, n, 'comparisons/ism-filter-shortlist')) && readdirSync(join(dir, n, 'comparisons/ism-filter-shortlist')).some((f) => f.endsWith('.pdf')))],
+    [
+      'while the browser prints',
+      () =>
+        readdirSync(dir)
+          .filter((n) => n.startsWith('.site.building-'))
+          .some((n) => existsSync(join(dir, n, 'parts/vt-amp-0560')) && readdirSync(join(dir, n, 'parts/vt-amp-0560')).some((f) => f.endsWith('.pdf'))),
+    ],
+    [
+      'as it prints its last PDF (the comparison)',
+      () =>
+        readdirSync(dir)
+          .filter((n) => n.startsWith('.site.building-'))
+          .some(
+            (n) =>
+              existsSync(join(dir, n, 'comparisons/ism-filter-shortlist')) &&
+              readdirSync(join(dir, n, 'comparisons/ism-filter-shortlist')).some((f) => f.endsWith('.pdf')),
+          ),
+    ],
   ];
-  it.each(moments)('%s: the old site, its manifest and the release records stay byte for byte; the next build succeeds', async (_, ready) => {
-    const site = snapshot(join(dir, 'site'));
-    const content = snapshot(join(dir, 'content'));
-    expect(site['manifest.json']).toBeDefined();
-    const child = spawn(process.execPath, [BIN, 'build', 'content', '--out', 'site', '--no-cache', '--pdf'], { cwd: dir, stdio: 'ignore' });
-    const exited = new Promise((r) => child.on('exit', r));
-    const end = Date.now() + 120_000;
-    while (Date.now() < end && !ready() && child.exitCode === null) await new Promise((r) => setTimeout(r, 20));
-    expect(child.exitCode, 'the build ended before the moment came').toBe(null);
-    child.kill('SIGKILL');
-    await exited;
-    if (!existsSync(join(dir, 'site'))) removeDeadBuilds(join(dir, 'site')); // killed inside the swap's rename window: what the next build does first
-    expect(snapshot(join(dir, 'site'))).toEqual(site);
-    expect(snapshot(join(dir, 'content'))).toEqual(content);
-    const next = run(['build', 'content', '--out', 'site', '--no-cache', '--no-pdf']);
-    expect(next.status, next.stderr).toBe(0);
-    expect(readdirSync(dir).filter((n) => n.startsWith('.site.'))).toEqual([]);
-    expect(run(['verify', 'site', 'content']).status).toBe(0);
-  }, 180_000);
+  it.each(moments)(
+    '%s: the old site, its manifest and the release records stay byte for byte; the next build succeeds',
+    async (_, ready) => {
+      const site = snapshot(join(dir, 'site'));
+      const content = snapshot(join(dir, 'content'));
+      expect(site['manifest.json']).toBeDefined();
+      const child = spawn(process.execPath, [BIN, 'build', 'content', '--out', 'site', '--no-cache', '--pdf'], { cwd: dir, stdio: 'ignore' });
+      const exited = new Promise((r) => child.on('exit', r));
+      const end = Date.now() + 120_000;
+      while (Date.now() < end && !ready() && child.exitCode === null) await new Promise((r) => setTimeout(r, 20));
+      expect(child.exitCode, 'the build ended before the moment came').toBe(null);
+      child.kill('SIGKILL');
+      await exited;
+      if (!existsSync(join(dir, 'site'))) removeDeadBuilds(join(dir, 'site')); // killed inside the swap's rename window: what the next build does first
+      expect(snapshot(join(dir, 'site'))).toEqual(site);
+      expect(snapshot(join(dir, 'content'))).toEqual(content);
+      const next = run(['build', 'content', '--out', 'site', '--no-cache', '--no-pdf']);
+      expect(next.status, next.stderr).toBe(0);
+      expect(readdirSync(dir).filter((n) => n.startsWith('.site.'))).toEqual([]);
+      expect(run(['verify', 'site', 'content']).status).toBe(0);
+    },
+    180_000,
+  );
 });

@@ -19,7 +19,10 @@ const VALUES = [10.02, 9.97, 10.11, 9.88, 10.05, 10.0, 9.93, 10.08, 10.14, 9.91,
 
 describe('lot statistics', () => {
   it.skipIf(!numpy)('mean and standard deviation equal numpy.mean and numpy.std(ddof=1) to 1e-12', () => {
-    const out = execFileSync(PYTHON, ['-c', `import json, numpy as np; v = np.array(${JSON.stringify(VALUES)}); print(json.dumps([float(np.mean(v)), float(np.std(v, ddof=1)), float(v.min()), float(v.max())]))`]).toString();
+    const out = execFileSync(PYTHON, [
+      '-c',
+      `import json, numpy as np; v = np.array(${JSON.stringify(VALUES)}); print(json.dumps([float(np.mean(v)), float(np.std(v, ddof=1)), float(v.min()), float(v.max())]))`,
+    ]).toString();
     const [mean, std, min, max] = JSON.parse(out) as number[];
     const s = summarize(VALUES, { max: 10.5 });
     expectClose(s.mean, mean, 1e-12, 'mean');
@@ -43,14 +46,23 @@ describe('lot statistics', () => {
 
   it('a unit counts once over the lot (its worst over its measurements), once per measurement within a condition; lots and the spread over conditions', () => {
     const unit = (u: string, worst: number) => ({ unit: u, worst, atHz: 1e9, worstOn: 'S21', margin: 1 - worst, pass: worst <= 1 });
-    const r = { limit: { max: 1 }, units: [unit('A @ cold', 0.5), unit('A @ hot', 0.7), unit('B @ cold', 0.4), unit('B @ hot', 0.9)] } as unknown as CheckResult;
+    const r = {
+      limit: { max: 1 },
+      units: [unit('A @ cold', 0.5), unit('A @ hot', 0.7), unit('B @ cold', 0.4), unit('B @ hot', 0.9)],
+    } as unknown as CheckResult;
     const info = (u: string) => ({ serial: u[0], lot: u[0] === 'A' ? 'L1' : 'L2', conditions: { temperature: u.split(' @ ')[1] } });
     const s = lotStatistics(r, info);
     expect(s.all.summary.count).toBe(2);
     expect(s.allWorsts).toEqual([0.7, 0.9]);
-    expect(s.lots.map((l) => [l.label, l.summary.count, l.worst])).toEqual([['lot L1', 1, 0.7], ['lot L2', 1, 0.9]]);
-    expect(s.conditions.map((c) => [c.label, c.summary.count, c.worst])).toEqual([['cold', 2, 0.5], ['hot', 2, 0.9]]);
-    expectClose(s.conditionSpread as number, 0.4, 1e-15, 'spread of the conditions\' worsts');
+    expect(s.lots.map((l) => [l.label, l.summary.count, l.worst])).toEqual([
+      ['lot L1', 1, 0.7],
+      ['lot L2', 1, 0.9],
+    ]);
+    expect(s.conditions.map((c) => [c.label, c.summary.count, c.worst])).toEqual([
+      ['cold', 2, 0.5],
+      ['hot', 2, 0.9],
+    ]);
+    expectClose(s.conditionSpread as number, 0.4, 1e-15, "spread of the conditions' worsts");
     expect(stripSvg(s.allWorsts, r.limit)).toMatch(/^<svg class="strip"[^]*stroke="#c0392b"[^]*<\/svg>$/);
   });
 });

@@ -26,11 +26,19 @@ beforeAll(() => {
 });
 
 const RECORD: ReleaseRecord = {
-  part: 'X-1', revision: 'B', date: '2026-11-20', released: '2026-12-01T10:00:00.000Z', tool: 'scatterbook 0.1.0', fingerprint: '0123456789ab',
+  part: 'X-1',
+  revision: 'B',
+  date: '2026-11-20',
+  released: '2026-12-01T10:00:00.000Z',
+  tool: 'scatterbook 0.1.0',
+  fingerprint: '0123456789ab',
   spec: { path: 'part.yaml', sha256: 'a'.repeat(64) },
   data: [{ path: 'data/u1.s2p', sha256: 'b'.repeat(64) }],
   documents: [{ path: 'released/B/X-1.pdf', sha256: 'c'.repeat(64) }],
-  figures: [{ key: 'insertion-loss S21 over passband', worst: 1.8388080000000004, unit: 'dB', margin: 0.6611919999999996, pass: true }, { key: 'bandwidth S21 over passband', worst: 1.2e8, unit: 'Hz', margin: null, pass: null }],
+  figures: [
+    { key: 'insertion-loss S21 over passband', worst: 1.8388080000000004, unit: 'dB', margin: 0.6611919999999996, pass: true },
+    { key: 'bandwidth S21 over passband', worst: 1.2e8, unit: 'Hz', margin: null, pass: null },
+  ],
 };
 
 describe('release records', () => {
@@ -39,11 +47,19 @@ describe('release records', () => {
     expect(parseRecord('part: X\nrevision B\n')).toEqual({ line: 2, message: 'expected "key: value"' });
   });
 
-  it('say what changed since: a file\'s hash, a file added or removed; and how the figures moved', () => {
+  it("say what changed since: a file's hash, a file added or removed; and how the figures moved", () => {
     expect(changedSince(RECORD, RECORD.spec, RECORD.data)).toEqual([]);
-    expect(changedSince(RECORD, { path: 'part.yaml', sha256: 'd'.repeat(64) }, [...RECORD.data, { path: 'data/u2.s2p', sha256: 'e'.repeat(64) }])).toEqual(['part.yaml (SHA-256 aaaaaaaaaaaa… then, dddddddddddd… now)', 'data/u2.s2p (added since)']);
-    expect(figureChanges(RECORD.figures, [{ ...RECORD.figures[0], worst: 2.61, margin: -0.11, pass: false }])).toEqual(['insertion-loss S21 over passband: worst 1.84 dB → 2.61 dB, margin 0.66 dB → −0.11 dB, pass → fail', 'bandwidth S21 over passband: no longer listed']);
-    expect(figureChanges(RECORD.figures.slice(0, 1), [{ ...RECORD.figures[0], margin: 1.16 }])).toEqual(['insertion-loss S21 over passband: margin 0.66 dB → 1.16 dB (the limit changed)']);
+    expect(changedSince(RECORD, { path: 'part.yaml', sha256: 'd'.repeat(64) }, [...RECORD.data, { path: 'data/u2.s2p', sha256: 'e'.repeat(64) }])).toEqual([
+      'part.yaml (SHA-256 aaaaaaaaaaaa… then, dddddddddddd… now)',
+      'data/u2.s2p (added since)',
+    ]);
+    expect(figureChanges(RECORD.figures, [{ ...RECORD.figures[0], worst: 2.61, margin: -0.11, pass: false }])).toEqual([
+      'insertion-loss S21 over passband: worst 1.84 dB → 2.61 dB, margin 0.66 dB → −0.11 dB, pass → fail',
+      'bandwidth S21 over passband: no longer listed',
+    ]);
+    expect(figureChanges(RECORD.figures.slice(0, 1), [{ ...RECORD.figures[0], margin: 1.16 }])).toEqual([
+      'insertion-loss S21 over passband: margin 0.66 dB → 1.16 dB (the limit changed)',
+    ]);
   });
 });
 
@@ -65,7 +81,9 @@ describe('a released revision never changes', () => {
     writeFileSync(data, lines.join('\n'));
     const r = run(['build', 'content', '--out', 'site', '--no-pdf']);
     expect(r.status).toBe(1);
-    expect(r.stderr).toMatch(/^content\/parts\/vt-bpf-2450\/part\.yaml:6:11: error: revision B was released on \d{4}-\d{2}-\d{2} \(release-B\.txt\), and since then data\/sn1002\.s2p \(SHA-256 [0-9a-f]{12}… then, [0-9a-f]{12}… now\) changed; a released revision never changes: raise revision for the new one$/m);
+    expect(r.stderr).toMatch(
+      /^content\/parts\/vt-bpf-2450\/part\.yaml:6:11: error: revision B was released on \d{4}-\d{2}-\d{2} \(release-B\.txt\), and since then data\/sn1002\.s2p \(SHA-256 [0-9a-f]{12}… then, [0-9a-f]{12}… now\) changed; a released revision never changes: raise revision for the new one$/m,
+    );
     expect(snapshot(join(dir, 'site'))).toEqual(before);
     const spec = join(dir, 'content/parts/vt-bpf-2450/part.yaml');
     writeFileSync(spec, readFileSync(spec, 'utf8').replace('revision: B', 'revision: C'));
@@ -77,22 +95,36 @@ describe('a released revision never changes', () => {
     writeFileSync(spec, readFileSync(spec, 'utf8').replace('revision: C', 'revision: B'));
   });
 
-  it.skipIf(!haveBrowser)('release freezes a revision once: documents and a record whose hashes are the files\', and a second release is refused with nothing touched', () => {
-    const r = run(['release', 'content/parts/vt-pad-10/part.yaml']);
-    expect(r.stderr).toBe('');
-    expect(r.status).toBe(0);
-    expect(r.stdout).toMatch(/^released VT-PAD-10 revision A: content\/parts\/vt-pad-10\/release-A\.txt and content\/parts\/vt-pad-10\/released\/A\/ \(4 documents\); commit them with the part\n$/);
-    const record = parseRecord(readFileSync(join(dir, 'content/parts/vt-pad-10/release-A.txt'), 'utf8'));
-    if (!('value' in record)) throw new Error(record.message);
-    expect(record.value.documents.map((d) => d.path)).toEqual(['released/A/VT-PAD-10.pdf', 'released/A/VT-PAD-10-report.pdf', 'released/A/datasheet.html', 'released/A/report.html']);
-    const sha = (p: string) => (spawnSync('sha256sum', [p], { encoding: 'utf8' }).stdout.split(' ')[0]);
-    for (const d of [...record.value.documents, ...record.value.data, record.value.spec]) expect(d.sha256, d.path).toBe(sha(join(dir, 'content/parts/vt-pad-10', d.path)));
-    expect(record.value.data.length).toBe(10);
-    const before = snapshot(join(dir, 'content/parts/vt-pad-10'));
-    const again = run(['release', 'content/parts/vt-pad-10/part.yaml']);
-    expect(again.status).toBe(1);
-    expect(again.stderr).toBe('error: VT-PAD-10 revision A is already released (content/parts/vt-pad-10/release-A.txt); a released revision never changes: raise revision: for a new release\n');
-    expect(snapshot(join(dir, 'content/parts/vt-pad-10'))).toEqual(before);
-    expect(existsSync(join(dir, 'content/parts/vt-pad-10/released/A/VT-PAD-10.pdf'))).toBe(true);
-  }, 180_000);
+  it.skipIf(!haveBrowser)(
+    "release freezes a revision once: documents and a record whose hashes are the files', and a second release is refused with nothing touched",
+    () => {
+      const r = run(['release', 'content/parts/vt-pad-10/part.yaml']);
+      expect(r.stderr).toBe('');
+      expect(r.status).toBe(0);
+      expect(r.stdout).toMatch(
+        /^released VT-PAD-10 revision A: content\/parts\/vt-pad-10\/release-A\.txt and content\/parts\/vt-pad-10\/released\/A\/ \(4 documents\); commit them with the part\n$/,
+      );
+      const record = parseRecord(readFileSync(join(dir, 'content/parts/vt-pad-10/release-A.txt'), 'utf8'));
+      if (!('value' in record)) throw new Error(record.message);
+      expect(record.value.documents.map((d) => d.path)).toEqual([
+        'released/A/VT-PAD-10.pdf',
+        'released/A/VT-PAD-10-report.pdf',
+        'released/A/datasheet.html',
+        'released/A/report.html',
+      ]);
+      const sha = (p: string) => spawnSync('sha256sum', [p], { encoding: 'utf8' }).stdout.split(' ')[0];
+      for (const d of [...record.value.documents, ...record.value.data, record.value.spec])
+        expect(d.sha256, d.path).toBe(sha(join(dir, 'content/parts/vt-pad-10', d.path)));
+      expect(record.value.data.length).toBe(10);
+      const before = snapshot(join(dir, 'content/parts/vt-pad-10'));
+      const again = run(['release', 'content/parts/vt-pad-10/part.yaml']);
+      expect(again.status).toBe(1);
+      expect(again.stderr).toBe(
+        'error: VT-PAD-10 revision A is already released (content/parts/vt-pad-10/release-A.txt); a released revision never changes: raise revision: for a new release\n',
+      );
+      expect(snapshot(join(dir, 'content/parts/vt-pad-10'))).toEqual(before);
+      expect(existsSync(join(dir, 'content/parts/vt-pad-10/released/A/VT-PAD-10.pdf'))).toBe(true);
+    },
+    180_000,
+  );
 });

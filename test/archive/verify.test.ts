@@ -32,13 +32,22 @@ beforeAll(() => {
 interface Manifest {
   manifestVersion: number;
   tool: { name: string; version: string };
-  parts: Array<{ slug: string; part: string; revision: string; pass: boolean; fingerprint: string; spec: { path: string; sha256: string }; data: Array<{ unit: string; path: string; sha256: string }>; figures: { results: unknown[] } }>;
+  parts: Array<{
+    slug: string;
+    part: string;
+    revision: string;
+    pass: boolean;
+    fingerprint: string;
+    spec: { path: string; sha256: string };
+    data: Array<{ unit: string; path: string; sha256: string }>;
+    figures: { results: unknown[] };
+  }>;
   comparisons: Array<{ slug: string; title: string; spec: { path: string; sha256: string }; data: unknown[] }>;
   outputs: Array<{ path: string; sha256: string; bytes: number }>;
 }
 
 describe('manifest.json', () => {
-  it('has the documented keys; every input and output hash is the SHA-256 of the file\'s bytes; the fingerprint is on the pages', () => {
+  it("has the documented keys; every input and output hash is the SHA-256 of the file's bytes; the fingerprint is on the pages", () => {
     const m = JSON.parse(readFileSync(join(dir, 'site/manifest.json'), 'utf8')) as Manifest;
     expect(Object.keys(m)).toEqual(['manifestVersion', 'tool', 'parts', 'comparisons', 'outputs']);
     expect(m.tool.name).toBe('scatterbook');
@@ -104,14 +113,36 @@ describe('scatterbook verify', () => {
 });
 
 describe('exports', () => {
-  it('figures.csv of the catalog, read back by Python\'s csv module (an independent parser), equals figures.json row for row, numbers unrounded', () => {
+  it("figures.csv of the catalog, read back by Python's csv module (an independent parser), equals figures.json row for row, numbers unrounded", () => {
     const script = `import csv, json, sys
 rows = list(csv.DictReader(open(sys.argv[1], newline='', encoding='utf-8')))
 print(json.dumps(rows))`;
     const rows = JSON.parse(spawnSync(PYTHON, ['-c', script, join(dir, 'site/figures.csv')], { encoding: 'utf8' }).stdout) as Array<Record<string, string>>;
-    const all = JSON.parse(readFileSync(join(dir, 'site/figures.json'), 'utf8')) as { parts: Array<{ part: string; revision: string; results: Array<Record<string, unknown> & { units: Array<Record<string, unknown>>; on: string[]; limit: Record<string, number> | null }> }> };
+    const all = JSON.parse(readFileSync(join(dir, 'site/figures.json'), 'utf8')) as {
+      parts: Array<{
+        part: string;
+        revision: string;
+        results: Array<Record<string, unknown> & { units: Array<Record<string, unknown>>; on: string[]; limit: Record<string, number> | null }>;
+      }>;
+    };
     const text = (v: unknown) => (v === null || v === undefined ? '' : String(v));
-    const expected = all.parts.flatMap((p) => p.results.flatMap((r) => r.units.map((u) => ({ part: p.part, revision: p.revision, figure: r.figure, on: r.on.join(' '), band: r.band, worst: text(r.worst), margin: text(r.margin), measurement: text(u.unit), measurement_worst: text(u.worst), measurement_at_hz: text(u.atHz), limit_max: text(r.limit?.max)}))));
+    const expected = all.parts.flatMap((p) =>
+      p.results.flatMap((r) =>
+        r.units.map((u) => ({
+          part: p.part,
+          revision: p.revision,
+          figure: r.figure,
+          on: r.on.join(' '),
+          band: r.band,
+          worst: text(r.worst),
+          margin: text(r.margin),
+          measurement: text(u.unit),
+          measurement_worst: text(u.worst),
+          measurement_at_hz: text(u.atHz),
+          limit_max: text(r.limit?.max),
+        })),
+      ),
+    );
     expect(rows.length).toBe(expected.length);
     expect(rows.length).toBeGreaterThan(100);
     rows.forEach((row, i) => {
@@ -121,10 +152,12 @@ print(json.dumps(rows))`;
     // per part: the part's own rows, and its figures.json is figures --json
     const own = readFileSync(join(dir, 'site/parts/vt-bpf-2450/figures.csv'), 'utf8').trim().split('\r\n');
     expect(own.length - 1).toBe(rows.filter((r) => r.part === 'VT-BPF-2450').length);
-    expect(JSON.parse(readFileSync(join(dir, 'site/parts/vt-bpf-2450/figures.json'), 'utf8'))).toEqual(JSON.parse(run(['figures', 'content/parts/vt-bpf-2450/part.yaml', '--json']).stdout));
+    expect(JSON.parse(readFileSync(join(dir, 'site/parts/vt-bpf-2450/figures.json'), 'utf8'))).toEqual(
+      JSON.parse(run(['figures', 'content/parts/vt-bpf-2450/part.yaml', '--json']).stdout),
+    );
   });
 
-  it('the median Touchstone file is marked derived and equals numpy.median of the units\' real and imaginary parts', () => {
+  it("the median Touchstone file is marked derived and equals numpy.median of the units' real and imaginary parts", () => {
     const path = join(dir, 'site/parts/vt-bpf-2450/VT-BPF-2450-median.s2p');
     const text = readFileSync(path, 'utf8');
     expect(text.split('\n')[0]).toMatch(/^! DERIVED DATA, not a measurement: the median of 4 measurements of VT-BPF-2450/);
@@ -141,9 +174,11 @@ print(json.dumps([re.tolist(), im.tolist()]))`;
     const [re, im] = JSON.parse(spawnSync(PYTHON, ['-c', script, ...files], { encoding: 'utf8' }).stdout) as number[][][];
     // the files hold DB format in v1 order S11 S21 S12 S22; our S is row-major S11 S12 S21 S22
     const order = [0, 2, 1, 3];
-    re.forEach((row, k) => row.forEach((v, e) => {
-      expect(Math.abs(median.s[2 * (k * 4 + order[e])] - v)).toBeLessThan(1e-12);
-      expect(Math.abs(median.s[2 * (k * 4 + order[e]) + 1] - im[k][e])).toBeLessThan(1e-12);
-    }));
+    re.forEach((row, k) =>
+      row.forEach((v, e) => {
+        expect(Math.abs(median.s[2 * (k * 4 + order[e])] - v)).toBeLessThan(1e-12);
+        expect(Math.abs(median.s[2 * (k * 4 + order[e]) + 1] - im[k][e])).toBeLessThan(1e-12);
+      }),
+    );
   });
 });

@@ -44,7 +44,8 @@ const KINDS = [
   },
   {
     ports: 4,
-    make: (s: number) => coupledLine(2e9, 20, { erEven: 6.5, erOdd: 6.35 }, { a: 0.3, b: 0.03 }, { impedance: 0.005, length: 0.003 }, grid(1e9, 3e9, 1601), seeded(s)),
+    make: (s: number) =>
+      coupledLine(2e9, 20, { erEven: 6.5, erOdd: 6.35 }, { a: 0.3, b: 0.03 }, { impedance: 0.005, length: 0.003 }, grid(1e9, 3e9, 1601), seeded(s)),
     yaml: 'class: coupler\nbands:\n  op: {from: 1.5 GHz, to: 2.5 GHz}\nlimits:\n  - {figure: coupling, on: S31, band: op, nominal: 20 dB, tolerance: 1.5 dB}\n  - {figure: directivity, on: [S31, S41], band: op, min: 15 dB}\n  - {figure: mainline-loss, on: S21, band: op, max: 0.3 dB}\n  - {figure: return-loss, on: [S11, S22], band: op, min: 20 dB}\n',
   },
 ];
@@ -63,7 +64,10 @@ function generate(): void {
       writeFileSync(join(content, 'parts', slug, file), writeTouchstone(net, { format: 'DB', significantDigits: 8 }));
       ms.push(`  - {unit: U${u}, file: ${file}}`);
     }
-    writeFileSync(join(content, 'parts', slug, 'part.yaml'), `part: BENCH-${i}\ntitle: Synthetic part ${i}\nrevision: A\nmeasurements:\n${ms.join('\n')}\n${kind.yaml}`);
+    writeFileSync(
+      join(content, 'parts', slug, 'part.yaml'),
+      `part: BENCH-${i}\ntitle: Synthetic part ${i}\nrevision: A\nmeasurements:\n${ms.join('\n')}\n${kind.yaml}`,
+    );
   }
   writeFileSync(join(content, '.complete'), '');
 }
@@ -108,6 +112,8 @@ else {
   const b = await buildCatalog(content, { version: 'bench', cacheDir: cache });
   const jobs = printJobs(b.catalog, join(root, 'site'), 'bench').slice(0, Number(process.env.BENCH_PDFS ?? 100));
   const r = await printAll(found, join(root, 'site'), jobs, { paper: 'A4', publicBase: '/' });
-  console.log(`PDFs: ${r.printed} datasheets in ${s(r.printMs)} after a ${s(r.launchMs)} launch = ${(r.printed / (r.printMs / 1000)).toFixed(2)} PDFs per second (${r.browserVersion}, ${found.source})`);
+  console.log(
+    `PDFs: ${r.printed} datasheets in ${s(r.printMs)} after a ${s(r.launchMs)} launch = ${(r.printed / (r.printMs / 1000)).toFixed(2)} PDFs per second (${r.browserVersion}, ${found.source})`,
+  );
 }
 console.log('(stage times add up over parts built three at a time, with plots drawn in worker threads, so they sum to more than the total)');

@@ -19,7 +19,8 @@ if (!existsSync(file)) {
     for (let i = 0; i < 4; i++) {
       const row: string[] = i === 0 ? [String(f)] : [];
       for (let j = 0; j < 4; j++) {
-        const ph = -f * 1e-9 * (i + j + 1), mag = i === j ? 0.1 : 0.9 / (1 + Math.abs(i - j));
+        const ph = -f * 1e-9 * (i + j + 1),
+          mag = i === j ? 0.1 : 0.9 / (1 + Math.abs(i - j));
         row.push((mag * Math.cos(ph)).toExponential(9), (mag * Math.sin(ph)).toExponential(9));
       }
       lines.push(row.join(' '));
@@ -45,7 +46,15 @@ const skrf = best('/usr/bin/python3', [join(import.meta.dirname, 'skrf_read_json
 // the two JSONs hold the same numbers
 const a = JSON.parse(execFileSync(process.execPath, [bin, 'read', file, '--json'], { maxBuffer: 1 << 30 }).toString());
 // scikit-rf prints a note about matplotlib on stdout first: the JSON is the last line
-const b = JSON.parse(execFileSync('/usr/bin/python3', [join(import.meta.dirname, 'skrf_read_json.py'), file], { maxBuffer: 1 << 30, stdio: ['ignore', 'pipe', 'ignore'] }).toString().trim().split('\n').at(-1) as string);
+const b = JSON.parse(
+  execFileSync('/usr/bin/python3', [join(import.meta.dirname, 'skrf_read_json.py'), file], { maxBuffer: 1 << 30, stdio: ['ignore', 'pipe', 'ignore'] })
+    .toString()
+    .trim()
+    .split('\n')
+    .at(-1) as string,
+);
 const same = a.s.length === b.s.length && a.frequencyHz.every((f: number, k: number) => f === b.frequencyHz[k]);
 process.stdout.write(`node -e 0 ${node0.toFixed(0)} ms; scatterbook --help ${help.toFixed(0)} ms (${(help / node0).toFixed(2)}× node -e 0)\n`);
-process.stdout.write(`read --json, 4 ports × 20,000 points: scatterbook ${ours.toFixed(0)} ms, scikit-rf ${skrf.toFixed(0)} ms — ${(skrf / ours).toFixed(2)}× faster${same ? '' : ' (the JSONs differ!)'}\n`);
+process.stdout.write(
+  `read --json, 4 ports × 20,000 points: scatterbook ${ours.toFixed(0)} ms, scikit-rf ${skrf.toFixed(0)} ms — ${(skrf / ours).toFixed(2)}× faster${same ? '' : ' (the JSONs differ!)'}\n`,
+);

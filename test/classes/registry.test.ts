@@ -14,7 +14,7 @@ import { PART_SCHEMA } from '../../src/part-file/part-schema.js';
 import { cautionsFor } from '../../src/classes/cautions.js';
 
 describe('the class registry', () => {
-  it('is the part file\'s list of classes', () => {
+  it("is the part file's list of classes", () => {
     if (PART_SCHEMA.t !== 'object') throw new Error('object schema');
     const cls = PART_SCHEMA.fields.class;
     expect(cls.t === 'string' && cls.enum).toEqual(CLASSES);
@@ -41,7 +41,7 @@ describe('the class registry', () => {
     expect(Number.isInteger(c.ways(4)) && c.ways(4) >= 1).toBe(true);
   });
 
-  it('holds the trade\'s defaults', () => {
+  it("holds the trade's defaults", () => {
     expect([classOf('divider').ways(3), classOf('divider').ways(5)]).toEqual([2, 4]);
     expect([classOf('hybrid').ways(4), classOf('coupler').ways(4), classOf('balun').ways(3)]).toEqual([2, 2, 2]);
     expect([classOf('hybrid').phaseSplitDeg, classOf('balun').phaseSplitDeg, classOf('divider').phaseSplitDeg]).toEqual([90, 180, 0]);

@@ -55,7 +55,9 @@ describe('environment faults end in exit 1 with the path and the cause, the old 
     expect(spawnSync('mount', ['-o', 'remount,ro', vol]).status).toBe(0);
     const r = run(['build', 'content', '--out', 'ro/site', '--no-pdf', '--no-cache']);
     expect(r.status).toBe(1);
-    expect(r.stderr).toMatch(/^error: ro\/\.site\.(?:building|pages)-[^:]+: the file system is read-only \(EROFS in mkdir\); nothing was published \(ro\/site is unchanged\)\n$/);
+    expect(r.stderr).toMatch(
+      /^error: ro\/\.site\.(?:building|pages)-[^:]+: the file system is read-only \(EROFS in mkdir\); nothing was published \(ro\/site is unchanged\)\n$/,
+    );
     expect(snapshot(vol)).toEqual(before);
   });
 
@@ -63,11 +65,16 @@ describe('environment faults end in exit 1 with the path and the cause, the old 
     const vol = mount(ctx, 'full', 'size=2m');
     expect(run(['build', 'content', '--out', 'full/site', '--no-pdf', '--no-cache']).status).toBe(0);
     // fill the rest but for a few blocks: the next site cannot fit
-    spawnSync('sh', ['-c', `dd if=/dev/zero of=${join(vol, 'filler')} bs=4k 2>/dev/null; rm -f ${join(vol, 'filler')}; dd if=/dev/zero of=${join(vol, 'filler')} bs=4k count=$(( $(df -k --output=avail ${vol} | tail -1) / 4 - 8 )) 2>/dev/null`]);
+    spawnSync('sh', [
+      '-c',
+      `dd if=/dev/zero of=${join(vol, 'filler')} bs=4k 2>/dev/null; rm -f ${join(vol, 'filler')}; dd if=/dev/zero of=${join(vol, 'filler')} bs=4k count=$(( $(df -k --output=avail ${vol} | tail -1) / 4 - 8 )) 2>/dev/null`,
+    ]);
     const before = snapshot(vol);
     const r = run(['build', 'content', '--out', 'full/site', '--no-pdf', '--no-cache']);
     expect(r.status).toBe(1);
-    expect(r.stderr).toMatch(/^error: (full\/\.site\.building-\S+|writing the new site for full\/site): no space left on the device \(ENOSPC in \w+\); nothing was published \(full\/site is unchanged\)\n$/);
+    expect(r.stderr).toMatch(
+      /^error: (full\/\.site\.building-\S+|writing the new site for full\/site): no space left on the device \(ENOSPC in \w+\); nothing was published \(full\/site is unchanged\)\n$/,
+    );
     expect(snapshot(vol)).toEqual(before); // the staging folder is gone again
     expect(readdirSync(vol).filter((n) => n.includes('building'))).toEqual([]);
   });
@@ -119,7 +126,7 @@ function descendants(pid: number): number[] {
   }
   const out: number[] = [];
   const walk = (p: number) => {
-    for (const [c, pp] of parent) if (pp === p) (out.push(c), walk(c));
+    for (const [c, pp] of parent) if (pp === p) out.push(c), walk(c);
   };
   walk(pid);
   return out;
@@ -136,33 +143,37 @@ function running(pid: number): boolean {
 }
 
 describe('a build killed while its browser prints', () => {
-  it.skipIf(!haveBrowser)('leaves no browser running, the old site intact, and the next build succeeds and clears the staging folder', async () => {
-    expect(run(['build', 'content', '--out', 'site-k', '--no-cache', '--no-pdf']).status).toBe(0);
-    const before = snapshot(join(dir, 'site-k'));
-    mkdirSync(join(dir, 'big/parts'), { recursive: true });
-    cpSync(join(ROOT, 'content/parts'), join(dir, 'big/parts'), { recursive: true });
-    const child = spawn(process.execPath, [BIN, 'build', 'big', '--out', 'site-k', '--no-cache', '--pdf'], { cwd: dir, stdio: 'ignore' });
-    let browsers: number[] = [];
-    const end = Date.now() + 60_000;
-    while (Date.now() < end && browsers.length === 0) {
-      await new Promise((r) => setTimeout(r, 100));
-      browsers = descendants(child.pid as number).filter((p) => {
-        try {
-          return /chrom/i.test(readFileSync(`/proc/${p}/cmdline`, 'utf8').split('\0')[0] ?? '');
-        } catch {
-          return false; // it ended meanwhile
-        }
-      });
-    }
-    expect(browsers.length).toBeGreaterThan(0);
-    const all = descendants(child.pid as number);
-    child.kill('SIGKILL');
-    const gone = Date.now() + 30_000; // generous: a loaded CI machine reaps slowly
-    while (Date.now() < gone && all.some(running)) await new Promise((r) => setTimeout(r, 200));
-    expect(all.filter(running)).toEqual([]);
-    expect(snapshot(join(dir, 'site-k'))).toEqual(before);
-    expect(readdirSync(dir).some((n) => n.startsWith('.site-k.building-'))).toBe(true);
-    expect(run(['build', 'content', '--out', 'site-k', '--no-cache', '--no-pdf']).status).toBe(0);
-    expect(readdirSync(dir).filter((n) => n.startsWith('.site-k.'))).toEqual([]);
-  }, 120_000);
+  it.skipIf(!haveBrowser)(
+    'leaves no browser running, the old site intact, and the next build succeeds and clears the staging folder',
+    async () => {
+      expect(run(['build', 'content', '--out', 'site-k', '--no-cache', '--no-pdf']).status).toBe(0);
+      const before = snapshot(join(dir, 'site-k'));
+      mkdirSync(join(dir, 'big/parts'), { recursive: true });
+      cpSync(join(ROOT, 'content/parts'), join(dir, 'big/parts'), { recursive: true });
+      const child = spawn(process.execPath, [BIN, 'build', 'big', '--out', 'site-k', '--no-cache', '--pdf'], { cwd: dir, stdio: 'ignore' });
+      let browsers: number[] = [];
+      const end = Date.now() + 60_000;
+      while (Date.now() < end && browsers.length === 0) {
+        await new Promise((r) => setTimeout(r, 100));
+        browsers = descendants(child.pid as number).filter((p) => {
+          try {
+            return /chrom/i.test(readFileSync(`/proc/${p}/cmdline`, 'utf8').split('\0')[0] ?? '');
+          } catch {
+            return false; // it ended meanwhile
+          }
+        });
+      }
+      expect(browsers.length).toBeGreaterThan(0);
+      const all = descendants(child.pid as number);
+      child.kill('SIGKILL');
+      const gone = Date.now() + 30_000; // generous: a loaded CI machine reaps slowly
+      while (Date.now() < gone && all.some(running)) await new Promise((r) => setTimeout(r, 200));
+      expect(all.filter(running)).toEqual([]);
+      expect(snapshot(join(dir, 'site-k'))).toEqual(before);
+      expect(readdirSync(dir).some((n) => n.startsWith('.site-k.building-'))).toBe(true);
+      expect(run(['build', 'content', '--out', 'site-k', '--no-cache', '--no-pdf']).status).toBe(0);
+      expect(readdirSync(dir).filter((n) => n.startsWith('.site-k.'))).toEqual([]);
+    },
+    120_000,
+  );
 });

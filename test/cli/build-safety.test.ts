@@ -29,7 +29,7 @@ function project(name: string): string {
   const p = join(dir, name);
   mkdirSync(join(p, 'content/parts'), { recursive: true });
   cpSync(join(ROOT, 'content/parts/vt-pad-10'), join(p, 'content/parts/vt-pad-10'), { recursive: true });
-  writeFileSync(join(p, 'notes.txt'), 'the user\'s own notes\n');
+  writeFileSync(join(p, 'notes.txt'), "the user's own notes\n");
   return p;
 }
 
@@ -97,7 +97,7 @@ describe('the output folder: never delete what scatterbook did not make', () => 
     expect(run(['build', 'content', '--out', 'fresh', '--no-pdf', '--no-cache'], p).status).toBe(0);
     expect(existsSync(join(p, 'fresh/stale.html'))).toBe(false);
     expect(existsSync(join(p, 'fresh/parts/vt-pad-10/index.html'))).toBe(true);
-    expect(readFileSync(join(p, 'notes.txt'), 'utf8')).toBe('the user\'s own notes\n');
+    expect(readFileSync(join(p, 'notes.txt'), 'utf8')).toBe("the user's own notes\n");
   });
 
   it('removes the staging and old folders that killed builds left behind, and only those', () => {
@@ -132,7 +132,15 @@ describe('a mount point as the output folder is updated by swapping its contents
       expect(r.status).toBe(0);
       expect(lstatSync(join(p, 'volume')).dev).toBe(dev);
       expect(existsSync(join(p, 'volume/stale.html'))).toBe(false);
-      expect(readdirSync(join(p, 'volume')).sort()).toEqual(['.scatterbook-site', 'assets', 'figures.csv', 'figures.json', 'index.html', 'manifest.json', 'parts']);
+      expect(readdirSync(join(p, 'volume')).sort()).toEqual([
+        '.scatterbook-site',
+        'assets',
+        'figures.csv',
+        'figures.json',
+        'index.html',
+        'manifest.json',
+        'parts',
+      ]);
     } finally {
       spawnSync('umount', [join(p, 'volume')]);
     }
@@ -155,7 +163,10 @@ function densePart(name: string, units: number, points: number): string {
       s[8 * k + 4] = a; // S21
       s[8 * k + 6] = 0.05; // S22
     }
-    writeFileSync(join(p, `content/parts/dense/data/u${u}.s2p`), writeTouchstone(makeNetwork(f, new Float64Array([50, 50]), s, 2), { version: '1.1', format: 'RI', frequencyUnit: 'GHz' }));
+    writeFileSync(
+      join(p, `content/parts/dense/data/u${u}.s2p`),
+      writeTouchstone(makeNetwork(f, new Float64Array([50, 50]), s, 2), { version: '1.1', format: 'RI', frequencyUnit: 'GHz' }),
+    );
     ms.push(`  - {unit: U${u}, file: data/u${u}.s2p}`);
   }
   writeFileSync(

@@ -73,7 +73,12 @@ describe('scatterbook build', () => {
     const c = content('evil');
     const yaml = join(c, 'parts/vt-pad-10/part.yaml');
     const evil = '<script>alert(1)</script> "><img src=x onerror=alert(2)>';
-    writeFileSync(yaml, readFileSync(yaml, 'utf8').replace(/^title: .*$/m, `title: '${evil}'`).replace(/^description: .*$/m, `description: '${evil}'\nnotes: |\n  Plain **bold** text.\n\n  ${evil}\n\n  [link](javascript:alert(3))`));
+    writeFileSync(
+      yaml,
+      readFileSync(yaml, 'utf8')
+        .replace(/^title: .*$/m, `title: '${evil}'`)
+        .replace(/^description: .*$/m, `description: '${evil}'\nnotes: |\n  Plain **bold** text.\n\n  ${evil}\n\n  [link](javascript:alert(3))`),
+    );
     expect(run(['build', 'evil', '--out', 'site-e', '--no-cache', '--no-pdf']).status).toBe(0);
     const page = readFileSync(join(dir, 'site-e/parts/vt-pad-10/index.html'), 'utf8');
     expect(page).not.toContain('<script>alert(1)</script>');
@@ -85,10 +90,13 @@ describe('scatterbook build', () => {
     expect(index).not.toContain('<img src=x');
   });
 
-  it('a vendor overrides a template by a file of the same name in the content folder\'s _includes/', () => {
+  it("a vendor overrides a template by a file of the same name in the content folder's _includes/", () => {
     const c = content('custom');
     mkdirSync(join(c, '_includes'));
-    writeFileSync(join(c, '_includes/ports.njk'), '<section class="ports"><h2 id="ports-title">Connections</h2><p class="vendor-ports">{{ part.ports.length }} connections</p></section>\n');
+    writeFileSync(
+      join(c, '_includes/ports.njk'),
+      '<section class="ports"><h2 id="ports-title">Connections</h2><p class="vendor-ports">{{ part.ports.length }} connections</p></section>\n',
+    );
     expect(run(['build', 'custom', '--out', 'site-c', '--no-cache', '--no-pdf']).status).toBe(0);
     const page = readFileSync(join(dir, 'site-c/parts/vt-pad-10/index.html'), 'utf8');
     expect(page).toContain('<p class="vendor-ports">2 connections</p>');
@@ -151,7 +159,11 @@ describe('scatterbook build', () => {
     for (const p of ['bin', 'dist', 'src/site', 'package.json', '.eleventy.js']) cpSync(join(ROOT, p), join(tool, p), { recursive: true });
     symlinkSync(join(ROOT, 'node_modules'), join(tool, 'node_modules'));
     content('tooled');
-    const build = () => spawnSync(process.execPath, [join(tool, 'bin/scatterbook.js'), 'build', 'tooled', '--out', 'site-tool', '--no-pdf', '--cache', 'cache-tool'], { cwd: dir, encoding: 'utf8' }).stdout;
+    const build = () =>
+      spawnSync(process.execPath, [join(tool, 'bin/scatterbook.js'), 'build', 'tooled', '--out', 'site-tool', '--no-pdf', '--cache', 'cache-tool'], {
+        cwd: dir,
+        encoding: 'utf8',
+      }).stdout;
     expect(build()).toMatch(/^built 2 parts/);
     expect(build()).toContain('(2 unchanged, from the cache)');
     const figures = join(tool, 'dist/evaluate/evaluate.js');
@@ -165,8 +177,14 @@ describe('scatterbook build', () => {
     writeFileSync(
       yaml,
       readFileSync(yaml, 'utf8')
-        .replace('  - {unit: SN2001, file: data/sn2001.s2p, conditions: {temperature: 25 °C, stage: initial}}', '  - {unit: SN2001, file: data/sn2001.s2p, conditions: {temperature: 25 °C, stage: initial}, instrument: 4-port analyser, calibration: SOLT 2026-09-30, date: 2026-10-01, operator: Q. Tester}')
-        .replace('ratings:', 'features: [Flat attenuation, Stainless-steel body]\ndeclared:\n  - {parameter: Power handling, max: 2, unit: W, conditions: "CW, 25 °C"}\nordering:\n  - {code: VT-PAD-10-SMA, description: SMA male to SMA female}\nratings:'),
+        .replace(
+          '  - {unit: SN2001, file: data/sn2001.s2p, conditions: {temperature: 25 °C, stage: initial}}',
+          '  - {unit: SN2001, file: data/sn2001.s2p, conditions: {temperature: 25 °C, stage: initial}, instrument: 4-port analyser, calibration: SOLT 2026-09-30, date: 2026-10-01, operator: Q. Tester}',
+        )
+        .replace(
+          'ratings:',
+          'features: [Flat attenuation, Stainless-steel body]\ndeclared:\n  - {parameter: Power handling, max: 2, unit: W, conditions: "CW, 25 °C"}\nordering:\n  - {code: VT-PAD-10-SMA, description: SMA male to SMA female}\nratings:',
+        ),
     );
     expect(run(['build', 'docs', '--out', 'site-docs', '--no-cache', '--no-pdf']).status).toBe(0);
     const sheet = readFileSync(join(dir, 'site-docs/parts/vt-pad-10/index.html'), 'utf8');
@@ -194,7 +212,9 @@ describe('scatterbook build', () => {
     const r = run(['build', 'gate', '--out', 'site-gate', '--no-cache', '--no-pdf']);
     expect(r.status).toBe(0);
     // the demo attenuator's unit SN2003 has a chipped resistor: its attenuation leaves 10 dB ± 0.5 dB
-    expect(r.stderr).toMatch(/^warning: VT-PAD-10 fails Attenuation on S21 over full: worst 10\.65 dB \(SN2003 at [\d.]+ MHz\) against 10\.00 dB ± 0\.50 dB\n$/);
+    expect(r.stderr).toMatch(
+      /^warning: VT-PAD-10 fails Attenuation on S21 over full: worst 10\.65 dB \(SN2003 at [\d.]+ MHz\) against 10\.00 dB ± 0\.50 dB\n$/,
+    );
     const strict = run(['build', 'gate', '--out', 'site-gate', '--no-cache', '--no-pdf', '--strict']);
     expect(strict.status).toBe(3);
     expect(existsSync(join(dir, 'site-gate/parts/vt-pad-10/index.html'))).toBe(true);

@@ -32,7 +32,11 @@ function run(args: string[]) {
 
 beforeAll(() => {
   dir = mkdtempSync(join(tmpdir(), 'scatterbook-compare-'));
-  const net = (readTouchstone(readFileSync(join(ROOT, 'content/parts/vt-bpf-2450/data/sn1001.s2p')), { fileName: 'sn1001.s2p' }).value as NonNullable<ReturnType<typeof readTouchstone>['value']>).network;
+  const net = (
+    readTouchstone(readFileSync(join(ROOT, 'content/parts/vt-bpf-2450/data/sn1001.s2p')), { fileName: 'sn1001.s2p' }).value as NonNullable<
+      ReturnType<typeof readTouchstone>['value']
+    >
+  ).network;
   writeFileSync(join(dir, 'ours.s2p'), writeTouchstone(net, { format: 'RI' }));
   // 0.5 dB more loss in both directions of transmission
   const s = Float64Array.from(net.s);
@@ -56,7 +60,24 @@ describe('scatterbook compare (quick form)', () => {
     expect(j.reference).toBe(50);
     expect(j.candidates.map((c: { label: string }) => c.label)).toEqual(['ours.s2p', 'lossier.s2p']);
     expect(Object.keys(j.candidates[0])).toEqual(['label', 'rank', 'pass', 'coverage', 'results']);
-    expect(Object.keys(j.candidates[0].results[0])).toEqual(['figure', 'on', 'band', 'fromHz', 'toHz', 'unit', 'limit', 'worst', 'worstAtHz', 'worstUnit', 'worstOn', 'typical', 'typicalUnit', 'margin', 'pass', 'units']);
+    expect(Object.keys(j.candidates[0].results[0])).toEqual([
+      'figure',
+      'on',
+      'band',
+      'fromHz',
+      'toHz',
+      'unit',
+      'limit',
+      'worst',
+      'worstAtHz',
+      'worstUnit',
+      'worstOn',
+      'typical',
+      'typicalUnit',
+      'margin',
+      'pass',
+      'units',
+    ]);
   });
 
   it('0.5 dB more loss: the insertion-loss worst is 0.5 dB higher, at the same frequency, and it ranks lower', () => {
@@ -68,7 +89,7 @@ describe('scatterbook compare (quick form)', () => {
     expect(ours.coverage).toBe('full');
   });
 
-  it('a file measured at 75 Ω, renormalized back to the comparison\'s 50 Ω, gives the original figures to 1e-9', () => {
+  it("a file measured at 75 Ω, renormalized back to the comparison's 50 Ω, gives the original figures to 1e-9", () => {
     const j = JSON.parse(run(['compare', 'ours.s2p', 'at75.s2p', ...LIMITS, '--json']).stdout);
     const [a, b] = j.candidates;
     a.results.forEach((r: { worst: number; typical: number }, i: number) => {
@@ -159,13 +180,40 @@ describe('scatterbook compare COMPARISON.yaml', () => {
   });
 
   const bad: Array<[string, (t: string) => string, RegExp]> = [
-    ['a port map naming a port the file lacks', (t) => t.replace('ports: {1: 1, 2: 2}', 'ports: {1: 3, 2: 2}'), /copies\.yaml:8:\d+: error: the port map of "Lossier" names port 3 of the file, but data\/lossier\.s2p has 2 ports/],
-    ['a part path that is no part file', (t) => t.replace('part: ../parts/f/part.yaml', 'part: data/lossier.s2p'), /copies\.yaml:7:\d+: error: part "data\/lossier\.s2p" of candidate "Ours" is no part file/],
-    ['a file outside the content folder', (t) => t.replace('file: data/at75.s2p', 'file: ../../at75.s2p'), /copies\.yaml:9:\d+: error: file "\.\.\/\.\.\/at75\.s2p" of candidate "At 75 ohm" lies outside the content folder/],
-    ['a band no candidate covers at all', (t) => t.replace('bands: {use: {from: 2.40 GHz, to: 2.48 GHz}}', 'bands: {use: {from: 2.40 GHz, to: 2.48 GHz}, far: {from: 40 GHz, to: 41 GHz}}').replace('band: use, min: 15 dB', 'band: far, min: 15 dB'), /copies\.yaml:2:\d+: error: no candidate has any data in band far/],
-    ['parameters the candidates\' ports cannot line up with', (t) => t.replace('on: S21, band: use', 'on: S31, band: use'), /copies\.yaml:4:\d+: error: candidates "Ours", "Lossier", "At 75 ohm": S31 needs port 3, but the measured files have 2 ports/],
+    [
+      'a port map naming a port the file lacks',
+      (t) => t.replace('ports: {1: 1, 2: 2}', 'ports: {1: 3, 2: 2}'),
+      /copies\.yaml:8:\d+: error: the port map of "Lossier" names port 3 of the file, but data\/lossier\.s2p has 2 ports/,
+    ],
+    [
+      'a part path that is no part file',
+      (t) => t.replace('part: ../parts/f/part.yaml', 'part: data/lossier.s2p'),
+      /copies\.yaml:7:\d+: error: part "data\/lossier\.s2p" of candidate "Ours" is no part file/,
+    ],
+    [
+      'a file outside the content folder',
+      (t) => t.replace('file: data/at75.s2p', 'file: ../../at75.s2p'),
+      /copies\.yaml:9:\d+: error: file "\.\.\/\.\.\/at75\.s2p" of candidate "At 75 ohm" lies outside the content folder/,
+    ],
+    [
+      'a band no candidate covers at all',
+      (t) =>
+        t
+          .replace('bands: {use: {from: 2.40 GHz, to: 2.48 GHz}}', 'bands: {use: {from: 2.40 GHz, to: 2.48 GHz}, far: {from: 40 GHz, to: 41 GHz}}')
+          .replace('band: use, min: 15 dB', 'band: far, min: 15 dB'),
+      /copies\.yaml:2:\d+: error: no candidate has any data in band far/,
+    ],
+    [
+      "parameters the candidates' ports cannot line up with",
+      (t) => t.replace('on: S21, band: use', 'on: S31, band: use'),
+      /copies\.yaml:4:\d+: error: candidates "Ours", "Lossier", "At 75 ohm": S31 needs port 3, but the measured files have 2 ports/,
+    ],
     ['a label used twice', (t) => t.replace('label: Short', 'label: Ours'), /copies\.yaml:10:\d+: error: the label "Ours" is used twice/],
-    ['a baseline that is no candidate', (t) => t.replace('baseline: Ours', 'baseline: Theirs'), /copies\.yaml:11:11: error: baseline "Theirs" is not the label of a candidate/],
+    [
+      'a baseline that is no candidate',
+      (t) => t.replace('baseline: Ours', 'baseline: Theirs'),
+      /copies\.yaml:11:11: error: baseline "Theirs" is not the label of a candidate/,
+    ],
   ];
   it.each(bad)('%s: one positioned message with the source line, exit 1', (_, change, message) => {
     write(change(COMPARISON));

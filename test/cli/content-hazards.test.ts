@@ -101,7 +101,11 @@ describe('a content folder full of hazards', () => {
       ['data-link-outside', 'lies outside the content folder'],
       ['part-latin1', 'is not UTF-8'],
       ['part-a-list', 'must be a mapping (key: value), not a list'],
-    ]) expect(r.stderr.split('\n').find((l) => l.includes(`parts/${slug}/`)), slug).toContain(says);
+    ])
+      expect(
+        r.stderr.split('\n').find((l) => l.includes(`parts/${slug}/`)),
+        slug,
+      ).toContain(says);
   });
 
   it('with --keep-going: the good part published, every other one listed as failed on the index, exit 1', () => {
@@ -111,7 +115,9 @@ describe('a content folder full of hazards', () => {
     expect(r.stderr).not.toMatch(/^\s+at /m);
     expect(existsSync(join(dir, 'site/parts/good/index.html'))).toBe(true);
     const index = readFileSync(join(dir, 'site/index.html'), 'utf8');
-    for (const slug of [...Object.keys(HAZARDS), ...Object.keys(BROKEN_PART_FILES), 'part-folder-link'].filter((s) => s !== 'good' && !(s === 'data-unreadable' && rootUser))) {
+    for (const slug of [...Object.keys(HAZARDS), ...Object.keys(BROKEN_PART_FILES), 'part-folder-link'].filter(
+      (s) => s !== 'good' && !(s === 'data-unreadable' && rootUser),
+    )) {
       expect(index, slug).toContain(`parts/${slug}/`);
       expect(existsSync(join(dir, `site/parts/${slug}/index.html`)), slug).toBe(false);
     }

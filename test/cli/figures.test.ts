@@ -46,8 +46,37 @@ describe('scatterbook figures', () => {
     const j = JSON.parse(r.stdout);
     expect(Object.keys(j)).toEqual(['part', 'revision', 'pass', 'results', 'warnings']);
     expect(j).toMatchObject({ part: 'T-FAIL', revision: 'C', pass: false });
-    expect(Object.keys(j.results[0])).toEqual(['figure', 'on', 'band', 'fromHz', 'toHz', 'unit', 'limit', 'worst', 'worstAtHz', 'worstUnit', 'worstOn', 'typical', 'typicalUnit', 'margin', 'pass', 'units']);
-    expect(j.results[0]).toMatchObject({ figure: 'insertion-loss', on: ['S21'], band: 'pass', fromHz: 1e9, toHz: 2e9, unit: 'dB', limit: { max: 0.5 }, worstAtHz: 2e9, worstUnit: 'A1', worstOn: 'S21', pass: false });
+    expect(Object.keys(j.results[0])).toEqual([
+      'figure',
+      'on',
+      'band',
+      'fromHz',
+      'toHz',
+      'unit',
+      'limit',
+      'worst',
+      'worstAtHz',
+      'worstUnit',
+      'worstOn',
+      'typical',
+      'typicalUnit',
+      'margin',
+      'pass',
+      'units',
+    ]);
+    expect(j.results[0]).toMatchObject({
+      figure: 'insertion-loss',
+      on: ['S21'],
+      band: 'pass',
+      fromHz: 1e9,
+      toHz: 2e9,
+      unit: 'dB',
+      limit: { max: 0.5 },
+      worstAtHz: 2e9,
+      worstUnit: 'A1',
+      worstOn: 'S21',
+      pass: false,
+    });
     expect(j.results[0].worst).toBeCloseTo(0.7, 12);
     expect(j.results[0].margin).toBeCloseTo(-0.2, 12);
     expect(Object.keys(j.results[0].units[0])).toEqual(['unit', 'worst', 'atHz', 'margin', 'pass']);
@@ -79,7 +108,7 @@ describe('scatterbook figures', () => {
     );
   });
 
-  it('a measurement file outside the part\'s folder is refused', () => {
+  it("a measurement file outside the part's folder is refused", () => {
     writeFileSync(join(dir, 'fail/outside.yaml'), PART.replace('file: data/a1.s2p', 'file: ../../etc/passwd.s2p'));
     const r = run(['figures', 'fail/outside.yaml']);
     expect(r.status).toBe(1);

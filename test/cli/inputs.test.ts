@@ -45,7 +45,10 @@ describe('what a data path really is', () => {
     mkdirSync(join(data, 'folder.s2p'));
     execFileSync('mkfifo', [join(data, 'pipe.s2p')]);
     const yaml = join(c, 'parts/vt-pad-10/part.yaml');
-    writeFileSync(yaml, readFileSync(yaml, 'utf8').replace('file: data/sn2001.s2p', 'file: data/folder.s2p').replace('file: data/sn2002.s2p', 'file: data/pipe.s2p'));
+    writeFileSync(
+      yaml,
+      readFileSync(yaml, 'utf8').replace('file: data/sn2001.s2p', 'file: data/folder.s2p').replace('file: data/sn2002.s2p', 'file: data/pipe.s2p'),
+    );
     const r = run(['figures', yaml]);
     expect(r.status).toBe(1);
     expect(r.stderr).toMatch(/part\.yaml:14:\d+: error: measurement file "data\/folder\.s2p" of unit SN2001 is a folder, not a file/);
@@ -60,7 +63,11 @@ describe('what a data path really is', () => {
 describe('what a Touchstone file really holds', () => {
   const cases: Array<[string, Uint8Array | string, string]> = [
     ['gzip-compressed', gzipSync(PAD), 'the file is gzip-compressed, not text; unpack it first'],
-    ['UTF-16 with a mark', Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from(PAD, 'utf16le')]), 'the file is UTF-16 text (it starts with a UTF-16 byte-order mark)'],
+    [
+      'UTF-16 with a mark',
+      Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from(PAD, 'utf16le')]),
+      'the file is UTF-16 text (it starts with a UTF-16 byte-order mark)',
+    ],
     ['UTF-16 without a mark', Buffer.from(PAD, 'utf16le'), 'the file looks like UTF-16 text (every other byte is zero)'],
     ['binary', Uint8Array.from({ length: 512 }, (_, i) => (i * 37 + 11) % 256), 'the file holds binary data'],
   ];
@@ -167,7 +174,10 @@ describe('nothing outside the content folder reaches the site', () => {
 describe('a reader that closes the pipe early', () => {
   it('read --json | head ends quietly: no stack trace', () => {
     writeFileSync(join(dir, 'long.s2p'), `# GHz S RI R 50\n${Array.from({ length: 20000 }, (_, k) => `${1 + k * 1e-4} 0.1 0 0.9 0 0.9 0 0.1 0`).join('\n')}\n`);
-    const r = spawnSync('sh', ['-c', `"${process.execPath}" "${BIN}" read long.s2p --json | head -c 100 > /dev/null; echo "status \${PIPESTATUS:-done}"`], { cwd: dir, encoding: 'utf8' });
+    const r = spawnSync('sh', ['-c', `"${process.execPath}" "${BIN}" read long.s2p --json | head -c 100 > /dev/null; echo "status \${PIPESTATUS:-done}"`], {
+      cwd: dir,
+      encoding: 'utf8',
+    });
     expect(r.stderr).toBe('');
   });
 });

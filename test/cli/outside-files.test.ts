@@ -21,7 +21,8 @@ function run(...args: string[]) {
   return { status: r.status, stdout: r.stdout, stderr: r.stderr };
 }
 
-const IMPEDANCE_WARNING = 'a comment mentions port impedances (as some simulators write); comments are not Touchstone data, so the references come from the option line or [Reference]';
+const IMPEDANCE_WARNING =
+  'a comment mentions port impedances (as some simulators write); comments are not Touchstone data, so the references come from the option line or [Reference]';
 
 beforeAll(() => {
   dir = mkdtempSync(join(tmpdir(), 'scatterbook-outside-'));
@@ -40,7 +41,12 @@ beforeAll(() => {
 
 describe('outside files (scikit-rf 0.15.4 data, BSD 3-clause)', () => {
   it('read: each file reads; a name with a space keeps its "error:" label and line', () => {
-    for (const [name, ports, points] of [['ring slot.s2p', 2, 201], ['ntwk1.s2p', 2, 91], ['tee.s3p', 3, 201], ['hfss_twoport.s2p', 2, 101]] as const) {
+    for (const [name, ports, points] of [
+      ['ring slot.s2p', 2, 201],
+      ['ntwk1.s2p', 2, 91],
+      ['tee.s3p', 3, 201],
+      ['hfss_twoport.s2p', 2, 101],
+    ] as const) {
       const r = run('read', join(OUTSIDE, name), '--json');
       expect(r.status, name).toBe(0);
       const j = JSON.parse(r.stdout);
@@ -48,7 +54,9 @@ describe('outside files (scikit-rf 0.15.4 data, BSD 3-clause)', () => {
     }
     const cut = run('read', 'ring slot cut.s2p');
     expect(cut.status).toBe(1);
-    expect(cut.stderr).toBe('ring slot cut.s2p:204: error: the point that starts at line 204 has 5 values; a 2-port point holds 9 values (the frequency and 4 pairs in the order N11 N21 N12 N22); if these are noise parameters, they must start at a frequency not above the last network frequency\n');
+    expect(cut.stderr).toBe(
+      'ring slot cut.s2p:204: error: the point that starts at line 204 has 5 values; a 2-port point holds 9 values (the frequency and 4 pairs in the order N11 N21 N12 N22); if these are noise parameters, they must start at a frequency not above the last network frequency\n',
+    );
   });
 
   it('read: the port-impedance comment of a field-solver export is a warning at its line', () => {
@@ -62,7 +70,13 @@ describe('outside files (scikit-rf 0.15.4 data, BSD 3-clause)', () => {
     expect(text.status).toBe(0);
     expect(text.stderr).toContain(`content/parts/gnd-cpw/data/hfss_twoport.s2p:25:1: warning: ${IMPEDANCE_WARNING}`);
     const json = run('figures', 'content/parts/gnd-cpw/part.yaml', '--json');
-    expect(JSON.parse(json.stdout).warnings[0]).toEqual({ code: 'touchstone', file: 'content/parts/gnd-cpw/data/hfss_twoport.s2p', line: 25, column: 1, message: IMPEDANCE_WARNING });
+    expect(JSON.parse(json.stdout).warnings[0]).toEqual({
+      code: 'touchstone',
+      file: 'content/parts/gnd-cpw/data/hfss_twoport.s2p',
+      line: 25,
+      column: 1,
+      message: IMPEDANCE_WARNING,
+    });
   });
 
   it('build: the warning on stderr and on the test report with its position; the datasheet, for customers, leaves it out', () => {

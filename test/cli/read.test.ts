@@ -18,9 +18,15 @@ function run(...args: string[]) {
 
 beforeAll(() => {
   dir = mkdtempSync(join(tmpdir(), 'scatterbook-cli-'));
-  writeFileSync(join(dir, 'amp.s2p'), '! test amplifier\n# GHz S RI R 50\n1 0.1 -0.02 0.9 0.1 0.05 0.01 0.2 0\n1.1 0.1 -0.02 3.0 0.1 0.05 0.01 0.2 0\n1.2 0.1 -0.02 1.2 2 0.2 0 0.1 0 3 1 ! too many\n');
+  writeFileSync(
+    join(dir, 'amp.s2p'),
+    '! test amplifier\n# GHz S RI R 50\n1 0.1 -0.02 0.9 0.1 0.05 0.01 0.2 0\n1.1 0.1 -0.02 3.0 0.1 0.05 0.01 0.2 0\n1.2 0.1 -0.02 1.2 2 0.2 0 0.1 0 3 1 ! too many\n',
+  );
   writeFileSync(join(dir, 'pad.s2p'), '# GHz S RI R 50\n1 0.1 -0.02 0.9 0.1 0.9 0.1 0.05 0.01\n1.1 0.1 -0.02 0.9 0.1 0.9 0.1 0.05 0.01\n');
-  writeFileSync(join(dir, 'noisy.ts'), '[Version] 2.0\n# GHz S MA R 50\n[Number of Ports] 2\n[Two-Port Data Order] 12_21\n[Number of Frequencies] 1\n[Number of Noise Frequencies] 1\n[Network Data]\n1 0.1 0 0.01 0 3 90 0.2 0\n[Noise Data]\n1 0.8 0.5 90 12.5\n[End]\n');
+  writeFileSync(
+    join(dir, 'noisy.ts'),
+    '[Version] 2.0\n# GHz S MA R 50\n[Number of Ports] 2\n[Two-Port Data Order] 12_21\n[Number of Frequencies] 1\n[Number of Noise Frequencies] 1\n[Network Data]\n1 0.1 0 0.01 0 3 90 0.2 0\n[Noise Data]\n1 0.8 0.5 90 12.5\n[End]\n',
+  );
 }, 30_000);
 
 describe('scatterbook read', () => {
@@ -36,15 +42,38 @@ describe('scatterbook read', () => {
       frequencyHz: [1e9, 1.1e9],
       referenceOhms: [50, 50],
       s: [
-        [[[0.1, -0.02], [0.9, 0.1]], [[0.9, 0.1], [0.05, 0.01]]],
-        [[[0.1, -0.02], [0.9, 0.1]], [[0.9, 0.1], [0.05, 0.01]]],
+        [
+          [
+            [0.1, -0.02],
+            [0.9, 0.1],
+          ],
+          [
+            [0.9, 0.1],
+            [0.05, 0.01],
+          ],
+        ],
+        [
+          [
+            [0.1, -0.02],
+            [0.9, 0.1],
+          ],
+          [
+            [0.9, 0.1],
+            [0.05, 0.01],
+          ],
+        ],
       ],
       noise: null,
     });
   });
 
   it('a file in mixed-mode order says so: mixedModeOrder in --json names the rows, and the summary labels the references by mode (Touchstone 2.0 [Mixed-Mode Order])', () => {
-    writeFileSync(join(dir, 'modes.ts'), '[Version] 2.0\n# GHz S RI R 50\n[Number of Ports] 4\n[Number of Frequencies] 1\n[Reference] 50 50 75 75\n[Mixed-Mode Order] D1,2 D3,4 C1,2 C3,4\n[Network Data]\n1 ' + '0 0 '.repeat(16) + '\n[End]\n');
+    writeFileSync(
+      join(dir, 'modes.ts'),
+      '[Version] 2.0\n# GHz S RI R 50\n[Number of Ports] 4\n[Number of Frequencies] 1\n[Reference] 50 50 75 75\n[Mixed-Mode Order] D1,2 D3,4 C1,2 C3,4\n[Network Data]\n1 ' +
+        '0 0 '.repeat(16) +
+        '\n[End]\n',
+    );
     const j = JSON.parse(run('read', 'modes.ts', '--json').stdout);
     expect(j.mixedModeOrder).toEqual(['D1,2', 'D3,4', 'C1,2', 'C3,4']);
     // differential 2R, common R/2 of the pair's single-ended references
@@ -62,8 +91,26 @@ describe('scatterbook read', () => {
     expect(r.stderr).toBe('');
     const s = JSON.parse(r.stdout).s as number[][][][];
     // v1 2-port order N11 N21 N12 N22: row i, column j
-    expect(s[0]).toEqual([[[0.5, 0.5], [0.001, 0.25]], [[5, 0], [0, 0.25]]]);
-    expect(s[1]).toEqual([[[0, -1.5], [0.125, -2]], [[1, 0.5], [3, -0.75]]]);
+    expect(s[0]).toEqual([
+      [
+        [0.5, 0.5],
+        [0.001, 0.25],
+      ],
+      [
+        [5, 0],
+        [0, 0.25],
+      ],
+    ]);
+    expect(s[1]).toEqual([
+      [
+        [0, -1.5],
+        [0.125, -2],
+      ],
+      [
+        [1, 0.5],
+        [3, -0.75],
+      ],
+    ]);
     expect(r.stdout).toContain('[1E-3,0.25]'); // copied as written
     expect(Object.is(s[0][1][0][1], 0)).toBe(true); // −0 is written as 0, as JSON.stringify does
   });

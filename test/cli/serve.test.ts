@@ -56,7 +56,10 @@ describe('scatterbook serve', () => {
     mkdirSync(join(dir, 'content/parts'), { recursive: true });
     cpSync(join(ROOT, 'content/parts/vt-pad-10'), join(dir, 'content/parts/vt-pad-10'), { recursive: true });
     const port = await freePort();
-    child = spawn(process.execPath, [join(ROOT, 'bin/scatterbook.js'), 'serve', 'content', '--port', String(port), '--out', 'site'], { cwd: dir, stdio: ['ignore', 'pipe', 'pipe'] });
+    child = spawn(process.execPath, [join(ROOT, 'bin/scatterbook.js'), 'serve', 'content', '--port', String(port), '--out', 'site'], {
+      cwd: dir,
+      stdio: ['ignore', 'pipe', 'pipe'],
+    });
     const url = `http://127.0.0.1:${port}/parts/vt-pad-10/index.html`;
     const first = await until(async () => {
       const r = await fetch(url);
@@ -64,7 +67,10 @@ describe('scatterbook serve', () => {
     }, 60_000);
     expect(first).toContain('Fixed attenuator, 10\u00a0dB');
     const yaml = join(dir, 'content/parts/vt-pad-10/part.yaml');
-    writeFileSync(yaml, readFileSync(yaml, 'utf8').replace('title: Fixed attenuator, 10 dB, DC–18 GHz', 'title: Fixed attenuator, 10 dB, edited while serving'));
+    writeFileSync(
+      yaml,
+      readFileSync(yaml, 'utf8').replace('title: Fixed attenuator, 10 dB, DC–18 GHz', 'title: Fixed attenuator, 10 dB, edited while serving'),
+    );
     const second = await until(async () => {
       const t = await (await fetch(url)).text();
       return t.includes('edited while serving') ? t : null;
@@ -73,11 +79,21 @@ describe('scatterbook serve', () => {
 
     // it listens on the loopback address only (read from the kernel's socket table: no traffic leaves the machine)
     const hex = port.toString(16).toUpperCase().padStart(4, '0');
-    const listening = readFileSync('/proc/net/tcp', 'utf8').split('\n').filter((l) => l.includes(`:${hex} `) && l.trim().split(/\s+/)[3] === '0A');
+    const listening = readFileSync('/proc/net/tcp', 'utf8')
+      .split('\n')
+      .filter((l) => l.includes(`:${hex} `) && l.trim().split(/\s+/)[3] === '0A');
     expect(listening.map((l) => l.trim().split(/\s+/)[1])).toEqual([`0100007F:${hex}`]);
 
     // malformed and escaping paths: 400 or 404, never a file outside the site, and it goes on serving
-    for (const [path, status] of [['/%', 400], ['/%zz', 400], ['/..%2f..%2fetc%2fpasswd', 404], ['/../../etc/passwd', 404], ['/%2e%2e/%2e%2e/etc/passwd', 404], ['/a%00b', 400], ['/parts/..%5c..%5cpackage.json', 400]] as const) {
+    for (const [path, status] of [
+      ['/%', 400],
+      ['/%zz', 400],
+      ['/..%2f..%2fetc%2fpasswd', 404],
+      ['/../../etc/passwd', 404],
+      ['/%2e%2e/%2e%2e/etc/passwd', 404],
+      ['/a%00b', 400],
+      ['/parts/..%5c..%5cpackage.json', 400],
+    ] as const) {
       const r = await rawGet(port, path);
       expect(r.status, path).toBe(status);
       expect(r.body).not.toContain('root:');

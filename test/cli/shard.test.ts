@@ -34,7 +34,8 @@ describe('build --shard K/N and merge', () => {
     expect(m.status).toBe(0);
     expect(m.stdout).toBe('joined 3 slices: 8 parts and 1 comparison into joined/\n');
     expect(run(['build', content, '--out', 'whole', '--no-pdf', '--no-cache']).status).toBe(0);
-    const whole = snapshot(join(dir, 'whole')), joined = snapshot(join(dir, 'joined'));
+    const whole = snapshot(join(dir, 'whole')),
+      joined = snapshot(join(dir, 'joined'));
     expect(Object.keys(joined).sort()).toEqual(Object.keys(whole).sort());
     expect(joined).toEqual(whole);
     // and the joined site holds as its manifest says
@@ -50,7 +51,9 @@ describe('build --shard K/N and merge', () => {
 
   it('slices that do not make one split, and a bad --shard: one message each, nothing written', () => {
     expect(run(['merge', 'slice1', 'slice3', '--out', 'partial']).stderr).toBe('error: the slices of 3 are 1, 3: slice 2 missing\n');
-    expect(run(['merge', 'slice1', 'slice1', 'slice2', 'slice3', '--out', 'partial']).stderr).toBe('error: the slices of 3 are 1, 1, 2, 3: slice 1 given twice\n');
+    expect(run(['merge', 'slice1', 'slice1', 'slice2', 'slice3', '--out', 'partial']).stderr).toBe(
+      'error: the slices of 3 are 1, 1, 2, 3: slice 1 given twice\n',
+    );
     expect(run(['merge', 'whole', '--out', 'partial']).stderr).toBe('error: whole: not the output of build --shard K/N (no .scatterbook-shard.json)\n');
     const bad = run(['build', join(ROOT, 'content'), '--out', 'x', '--shard', '4/3']);
     expect(bad.status).toBe(2);

@@ -57,7 +57,9 @@ describe('demo comparison data', () => {
       expect(passivity(r.value!.network).passive, rel).toBe(true);
       nets.set(rel, r.value);
     }
-    const [orrin, tallow, short] = ['data/orrin-or-bp24/unit-a.s2p', 'data/tallowmere-tc-2442f/sn0117.s2p', 'data/tallowmere-tc-2440n/sn0042.s2p'].map((f) => nets.get(f)!.network);
+    const [orrin, tallow, short] = ['data/orrin-or-bp24/unit-a.s2p', 'data/tallowmere-tc-2442f/sn0117.s2p', 'data/tallowmere-tc-2440n/sn0042.s2p'].map(
+      (f) => nets.get(f)!.network,
+    );
     expect(orrin.freqHz[1] - orrin.freqHz[0]).toBe(6.25e6);
     expect(Array.from(tallow.z0)).toEqual([75, 75]);
     expect(short.freqHz.at(-1)).toBe(2.47e9);

@@ -17,7 +17,8 @@ let dir: string;
 const run = (args: string[]) => spawnSync(process.execPath, [BIN, ...args], { cwd: dir, encoding: 'utf8' });
 
 /** A version 1 DB file: S11 and S22 at −30 dB, S21 = S12 at the given dB. */
-const file = (points: Array<[number, number]>) => `! hand-made for the change-limit test\n# GHz S DB R 50\n${points.map(([f, db]) => `${f} -30 0 ${db} 0 ${db} 0 -30 0`).join('\n')}\n`;
+const file = (points: Array<[number, number]>) =>
+  `! hand-made for the change-limit test\n# GHz S DB R 50\n${points.map(([f, db]) => `${f} -30 0 ${db} 0 ${db} 0 -30 0`).join('\n')}\n`;
 
 const PART = (limits: string, more = '') => `part: Q-1
 class: attenuator
@@ -33,9 +34,31 @@ const CHANGE = '  - {figure: insertion-loss, on: S21, band: b, change: {from: {s
 
 beforeAll(() => {
   dir = mkdtempSync(join(tmpdir(), 'scatterbook-change-'));
-  writeFileSync(join(dir, 'u1-initial.s2p'), file([[1, -1], [2, -1], [3, -1]]));
-  writeFileSync(join(dir, 'u1-cycled.s2p'), file([[1, -1.08], [1.5, -1.08], [2.5, -1.08], [3, -1.08]]));
-  writeFileSync(join(dir, 'u2-initial.s2p'), file([[1, -1], [2, -1], [3, -1]]));
+  writeFileSync(
+    join(dir, 'u1-initial.s2p'),
+    file([
+      [1, -1],
+      [2, -1],
+      [3, -1],
+    ]),
+  );
+  writeFileSync(
+    join(dir, 'u1-cycled.s2p'),
+    file([
+      [1, -1.08],
+      [1.5, -1.08],
+      [2.5, -1.08],
+      [3, -1.08],
+    ]),
+  );
+  writeFileSync(
+    join(dir, 'u2-initial.s2p'),
+    file([
+      [1, -1],
+      [2, -1],
+      [3, -1],
+    ]),
+  );
 });
 
 describe('change limits', () => {
@@ -44,7 +67,25 @@ describe('change limits', () => {
     const r = run(['figures', 'part.yaml', '--json']);
     expect(r.stderr).toBe('');
     const res = JSON.parse(r.stdout).results[0];
-    expect(Object.keys(res)).toEqual(['figure', 'on', 'band', 'fromHz', 'toHz', 'unit', 'limit', 'worst', 'worstAtHz', 'worstUnit', 'worstOn', 'typical', 'typicalUnit', 'margin', 'pass', 'units', 'change']);
+    expect(Object.keys(res)).toEqual([
+      'figure',
+      'on',
+      'band',
+      'fromHz',
+      'toHz',
+      'unit',
+      'limit',
+      'worst',
+      'worstAtHz',
+      'worstUnit',
+      'worstOn',
+      'typical',
+      'typicalUnit',
+      'margin',
+      'pass',
+      'units',
+      'change',
+    ]);
     expect(Math.abs(res.worst - 0.08)).toBeLessThan(1e-12);
     expect(Math.abs(res.margin - 0.02)).toBeLessThan(1e-12);
     expect(res.pass).toBe(true);
@@ -59,10 +100,16 @@ describe('change limits', () => {
     writeFileSync(join(dir, 'part.yaml'), PART(CHANGE, '  - {unit: U2, file: u2-initial.s2p, conditions: {stage: initial}}\n'));
     const a = run(['figures', 'part.yaml']);
     expect(a.status).toBe(1);
-    expect(a.stderr).toMatch(/^part\.yaml:10:5: error: unit U2 has no measurement at stage: after thermal cycling; a change limit needs each unit measured once at both stages/);
+    expect(a.stderr).toMatch(
+      /^part\.yaml:10:5: error: unit U2 has no measurement at stage: after thermal cycling; a change limit needs each unit measured once at both stages/,
+    );
     writeFileSync(join(dir, 'part.yaml'), PART(CHANGE.replace('stage: after thermal cycling}}', 'stage: after shock}}')));
-    expect(run(['figures', 'part.yaml']).stderr).toMatch(/^part\.yaml:9:\d+: error: no measured unit has stage: after shock; the units have stage initial, after thermal cycling/);
+    expect(run(['figures', 'part.yaml']).stderr).toMatch(
+      /^part\.yaml:9:\d+: error: no measured unit has stage: after shock; the units have stage initial, after thermal cycling/,
+    );
     writeFileSync(join(dir, 'part.yaml'), PART(CHANGE.replace('figure: insertion-loss', 'figure: passband-ripple')));
-    expect(run(['figures', 'part.yaml']).stderr).toMatch(/error: a change limit compares a figure point by point between two stages, and passband-ripple has one value per unit/);
+    expect(run(['figures', 'part.yaml']).stderr).toMatch(
+      /error: a change limit compares a figure point by point between two stages, and passband-ripple has one value per unit/,
+    );
   });
 });

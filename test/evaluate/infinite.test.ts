@@ -12,15 +12,23 @@ import { cx, networkOf, partYaml, resultsOf } from '../helpers.js';
 
 describe('infinite values', () => {
   // |S11| = 0.1 at 1 GHz, 1 (open) at 2 GHz, 0.1 at 3 GHz
-  const net = networkOf([1e9, 2e9, 3e9], 50, (f) => [[cx(f === 2e9 ? 1 : 0.1), cx(0.5)], [cx(0.5), cx(0.1)]]);
+  const net = networkOf([1e9, 2e9, 3e9], 50, (f) => [
+    [cx(f === 2e9 ? 1 : 0.1), cx(0.5)],
+    [cx(0.5), cx(0.1)],
+  ]);
 
   it('VSWR ∞ fails max 1.5 with margin −∞, and the JSON says "Infinity" and "-Infinity"', () => {
-    const r = resultsOf(partYaml({ cls: 'generic', units: ['U1'], bands: '  b: {from: 1.5 GHz, to: 2.5 GHz}', limits: '  - {figure: vswr, on: S11, band: b, max: 1.5}' }), { U1: net });
+    const r = resultsOf(
+      partYaml({ cls: 'generic', units: ['U1'], bands: '  b: {from: 1.5 GHz, to: 2.5 GHz}', limits: '  - {figure: vswr, on: S11, band: b, max: 1.5}' }),
+      { U1: net },
+    );
     const c = r.results[0];
     expect(c.worst).toBe(Infinity);
     expect(c.margin).toBe(-Infinity);
     expect(c.pass).toBe(false);
-    const j = JSON.parse(JSON.stringify(figuresJson(r))) as { results: Array<{ worst: unknown; margin: unknown; typical: unknown; units: Array<{ worst: unknown; margin: unknown }> }> };
+    const j = JSON.parse(JSON.stringify(figuresJson(r))) as {
+      results: Array<{ worst: unknown; margin: unknown; typical: unknown; units: Array<{ worst: unknown; margin: unknown }> }>;
+    };
     expect([j.results[0].worst, j.results[0].margin, j.results[0].typical]).toEqual(['Infinity', '-Infinity', 'Infinity']);
     expect([j.results[0].units[0].worst, j.results[0].units[0].margin]).toEqual(['Infinity', '-Infinity']);
   });

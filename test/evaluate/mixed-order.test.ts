@@ -25,7 +25,9 @@ function evaluate(limits: string, extra = '') {
   if (!part) throw new Error('the part file should load');
   const data = readTouchstone(new TextEncoder().encode(mixedFile()), { fileName: 'u1.ts' }).value;
   if (!data) throw new Error('the file should read');
-  const units: UnitData[] = [{ unit: 'U1', file: 'u1.ts', network: data.network, mixedModeOrder: data.info.mixedModeOrder, conditions: {}, fileAt: { line: 4, column: 23 } }];
+  const units: UnitData[] = [
+    { unit: 'U1', file: 'u1.ts', network: data.network, mixedModeOrder: data.info.mixedModeOrder, conditions: {}, fileAt: { line: 4, column: 23 } },
+  ];
   return evaluatePart(part, units);
 }
 
@@ -42,7 +44,9 @@ describe('files in mixed-mode order', () => {
     const r = evaluate('  - {figure: insertion-loss, on: S21, band: b, max: 7 dB}');
     expect(r.value).toBeNull();
     expect(r.errors[0]).toMatchObject({ code: 'bad-parameter', line: 8 });
-    expect(r.errors[0].message).toBe('S21 names a single-ended entry, but u1.ts holds mixed-mode data ([Mixed-Mode Order] D1,2 D3,4 C1,2 C3,4): name its entries by mode, e.g. Sdd21, Scd21, Scc11');
+    expect(r.errors[0].message).toBe(
+      'S21 names a single-ended entry, but u1.ts holds mixed-mode data ([Mixed-Mode Order] D1,2 D3,4 C1,2 C3,4): name its entries by mode, e.g. Sdd21, Scd21, Scc11',
+    );
   });
 
   it('a mode port the file does not have is an error', () => {
@@ -53,8 +57,14 @@ describe('files in mixed-mode order', () => {
 
 describe('mixed-mode pairs of ports with different references', () => {
   it('are an error at the pairs naming the file and the references', () => {
-    const net = networkOf([1e9, 2e9], [50, 75, 50, 50], () => [[cx(0), cx(0), cx(0.5), cx(0)], [cx(0), cx(0), cx(0), cx(0.5)], [cx(0.5), cx(0), cx(0), cx(0)], [cx(0), cx(0.5), cx(0), cx(0)]]);
-    const yaml = 'part: MM-2\nclass: generic\nmixed-mode: {pairs: [[1, 2], [3, 4]]}\nmeasurements:\n  - {unit: U1, file: u1.s4p}\nbands:\n  b: {from: 1 GHz, to: 2 GHz}\nlimits:\n  - {figure: insertion-loss, on: Sdd21, band: b, max: 7 dB}\n';
+    const net = networkOf([1e9, 2e9], [50, 75, 50, 50], () => [
+      [cx(0), cx(0), cx(0.5), cx(0)],
+      [cx(0), cx(0), cx(0), cx(0.5)],
+      [cx(0.5), cx(0), cx(0), cx(0)],
+      [cx(0), cx(0.5), cx(0), cx(0)],
+    ]);
+    const yaml =
+      'part: MM-2\nclass: generic\nmixed-mode: {pairs: [[1, 2], [3, 4]]}\nmeasurements:\n  - {unit: U1, file: u1.s4p}\nbands:\n  b: {from: 1 GHz, to: 2 GHz}\nlimits:\n  - {figure: insertion-loss, on: Sdd21, band: b, max: 7 dB}\n';
     const part = loadPartText(yaml, 'part.yaml').value;
     if (!part) throw new Error('loads');
     const r = evaluatePart(part, [{ unit: 'U1', file: 'u1.s4p', network: net, conditions: {}, fileAt: { line: 5, column: 23 } }]);

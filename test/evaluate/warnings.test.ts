@@ -44,7 +44,10 @@ describe('an aliased group delay', () => {
   // a 10 ns lossless line sampled every 60 MHz: the phase turns 216° per step, which unwraps as −144°,
   // so the delay reads 144/360/60 MHz = −6.667 ns, and passes a max 12 ns limit
   const freqs = Array.from({ length: 18 }, (_, k) => 1e9 + k * 60e6);
-  const line = networkOf(freqs, 50, (f) => [[cx(0), polar(1, -360 * f * 10e-9)], [polar(1, -360 * f * 10e-9), cx(0)]]);
+  const line = networkOf(freqs, 50, (f) => [
+    [cx(0), polar(1, -360 * f * 10e-9)],
+    [polar(1, -360 * f * 10e-9), cx(0)],
+  ]);
   const limits = '  - {figure: group-delay, on: S21, band: b, max: 12 ns}';
 
   it('reads −6.667 ns and is flagged: a warning naming the band, the frequency and the grid step', () => {
@@ -52,12 +55,17 @@ describe('an aliased group delay', () => {
     expect(r.results[0].worst).toBeCloseTo(-(360 - 216) / 360 / 60e6, 15);
     expect(r.warnings).toHaveLength(1);
     expect(r.warnings[0].code).toBe('delay-aliased');
-    expect(r.warnings[0].message).toMatch(/comes out negative \(-6\.667 ns at [\d.]+ GHz\) on a passive part over b: .*\(they are 60 MHz apart, so delays above 1\/\(2Δf\) = 8\.333 ns alias/);
+    expect(r.warnings[0].message).toMatch(
+      /comes out negative \(-6\.667 ns at [\d.]+ GHz\) on a passive part over b: .*\(they are 60 MHz apart, so delays above 1\/\(2Δf\) = 8\.333 ns alias/,
+    );
   });
 
   it('the same line on a 10 MHz grid reads 10 ns with no warning', () => {
     const fine = Array.from({ length: 101 }, (_, k) => 1e9 + k * 10e6);
-    const net = networkOf(fine, 50, (f) => [[cx(0), polar(1, -360 * f * 10e-9)], [polar(1, -360 * f * 10e-9), cx(0)]]);
+    const net = networkOf(fine, 50, (f) => [
+      [cx(0), polar(1, -360 * f * 10e-9)],
+      [polar(1, -360 * f * 10e-9), cx(0)],
+    ]);
     const r = resultsOf(partYaml({ cls: 'cable', units: ['U1'], bands: band, limits }), { U1: net });
     expect(r.results[0].worst).toBeCloseTo(10e-9, 15);
     expect(r.warnings).toEqual([]);

@@ -25,6 +25,12 @@ describe('precision', () => {
   });
 
   it('other units keep their fixed decimals', () => {
-    expect([formatValue(1.23456, 'dB'), formatValue(89.987, 'deg'), formatValue(1.22222, ''), formatValue(4.7812e-9, 's'), formatValue(47.812e-12, 's')]).toEqual(['1.23 dB', '89.99°', '1.222', '4.781 ns', '47.81 ps']);
+    expect([
+      formatValue(1.23456, 'dB'),
+      formatValue(89.987, 'deg'),
+      formatValue(1.22222, ''),
+      formatValue(4.7812e-9, 's'),
+      formatValue(47.812e-12, 's'),
+    ]).toEqual(['1.23 dB', '89.99°', '1.222', '4.781 ns', '47.81 ps']);
   });
 });

@@ -7,7 +7,10 @@ describe('S ↔ Z ↔ Y (Pozar, Microwave Engineering, §4.3: Z = √R(I+S)(I−
     // Series impedance Zs between two 50 Ω ports: S11 = Zs/(Zs + 2Z0), S21 = 2Z0/(Zs + 2Z0) (Pozar table 4.x, from memory).
     // A pure series element has no Z matrix (I − S singular), so we check Y: Y = [[1, −1], [−1, 1]]/Zs.
     const zs = 30;
-    const net = networkOf([1e9], 50, () => [[cx(zs / (zs + 100)), cx(100 / (zs + 100))], [cx(100 / (zs + 100)), cx(zs / (zs + 100))]]);
+    const net = networkOf([1e9], 50, () => [
+      [cx(zs / (zs + 100)), cx(100 / (zs + 100))],
+      [cx(100 / (zs + 100)), cx(zs / (zs + 100))],
+    ]);
     const y = sToY(net).data;
     expectComplexClose([y[0], y[1]], [1 / zs, 0], 1e-15, 'Y11');
     expectComplexClose([y[2], y[3]], [-1 / zs, 0], 1e-15, 'Y12');
@@ -17,15 +20,19 @@ describe('S ↔ Z ↔ Y (Pozar, Microwave Engineering, §4.3: Z = √R(I+S)(I−
 
   it('a shunt resistor R: Z = R everywhere; S11 = −Z0/(2R + Z0)', () => {
     const r = 75;
-    const s11 = -50 / (2 * r + 50), s21 = (2 * r) / (2 * r + 50);
-    const net = networkOf([1e9], 50, () => [[cx(s11), cx(s21)], [cx(s21), cx(s11)]]);
+    const s11 = -50 / (2 * r + 50),
+      s21 = (2 * r) / (2 * r + 50);
+    const net = networkOf([1e9], 50, () => [
+      [cx(s11), cx(s21)],
+      [cx(s21), cx(s11)],
+    ]);
     const z = sToZ(net).data;
     for (let e = 0; e < 4; e++) expectComplexClose([z[2 * e], z[2 * e + 1]], [r, 0], 1e-12, `Z element ${e}`);
   });
 
   it('round trips S → Z → S and S → Y → S at unequal references', () => {
     const net = networkOf([1e9, 2e9], [50, 75, 20], (f) => [
-      [cx(0.1, 0.2 * f / 1e9), cx(0.3, -0.1), cx(0.05, 0.02)],
+      [cx(0.1, (0.2 * f) / 1e9), cx(0.3, -0.1), cx(0.05, 0.02)],
       [cx(0.3, -0.1), cx(-0.2, 0.1), cx(0.1, 0)],
       [cx(0.05, 0.02), cx(0.1, 0), cx(0.4, -0.3)],
     ]);
@@ -41,7 +48,10 @@ describe('renormalization', () => {
   // computed by hand from the power-wave renormalization S′ = A⁻¹(S − Γ)(I − ΓS)⁻¹A (Kurokawa, IEEE Trans. MTT 1965),
   // not a published table.
   const a = Math.pow(10, -6 / 20);
-  const pad = networkOf([1e9], 50, () => [[cx(0), cx(a)], [cx(a), cx(0)]]);
+  const pad = networkOf([1e9], 50, () => [
+    [cx(0), cx(a)],
+    [cx(a), cx(0)],
+  ]);
 
   it('matched 6 dB pad, 50 → 75 Ω', () => {
     const r = renormalize(pad, 75);
@@ -62,7 +72,10 @@ describe('renormalization', () => {
   });
 
   it('works where Z does not exist (an ideal thru stays a thru at the same reference)', () => {
-    const thru = networkOf([1e9], 50, () => [[cx(0), cx(1)], [cx(1), cx(0)]]);
+    const thru = networkOf([1e9], 50, () => [
+      [cx(0), cx(1)],
+      [cx(1), cx(0)],
+    ]);
     const r = renormalize(thru, 75);
     // an ideal thru holds no impedance of its own, so at any common reference S11 = 0 and S21 = 1
     expectComplexClose(sAt(r, 0, 1, 1), [0, 0], 1e-15);

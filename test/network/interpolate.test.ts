@@ -7,7 +7,10 @@ import { expectClose, networkOf, cx, polar, sAt } from '../helpers.js';
 describe('interpolation', () => {
   // a lossy delay line: |S21| = 0.9, τ = 2 ns (72° per 100 MHz)
   const freqs = [1e9, 1.1e9, 1.2e9, 1.3e9];
-  const net = networkOf(freqs, 50, (f) => [[cx(0.1), polar(0.9, -360 * f * 2e-9)], [polar(0.9, -360 * f * 2e-9), cx(0.1)]]);
+  const net = networkOf(freqs, 50, (f) => [
+    [cx(0.1), polar(0.9, -360 * f * 2e-9)],
+    [polar(0.9, -360 * f * 2e-9), cx(0.1)],
+  ]);
 
   it('polar interpolation keeps |S21| and the group delay between points', () => {
     const fine = Float64Array.from({ length: 31 }, (_, k) => 1e9 + k * 1e7);

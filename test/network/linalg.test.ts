@@ -27,7 +27,8 @@ function detAbs(m: Float64Array, n: number): number {
     const d = pr * pr + pi * pi;
     for (let r = c + 1; r < n; r++) {
       const [xr, xi] = a[r][c];
-      const fr = (xr * pr + xi * pi) / d, fi = (xi * pr - xr * pi) / d;
+      const fr = (xr * pr + xi * pi) / d,
+        fi = (xi * pr - xr * pi) / d;
       for (let k = c; k < n; k++) {
         const [yr, yi] = a[c][k];
         a[r][k] = [a[r][k][0] - (fr * yr - fi * yi), a[r][k][1] - (fr * yi + fi * yr)];
@@ -60,7 +61,7 @@ describe('singular values', () => {
 });
 
 describe('the largest singular value by tridiagonal reduction and bisection', () => {
-  it('equals the Jacobi method\'s on random complex matrices of 3 to 16 ports, to 1e-12 relative', () => {
+  it("equals the Jacobi method's on random complex matrices of 3 to 16 ports, to 1e-12 relative", () => {
     fc.assert(
       fc.property(fc.integer({ min: 3, max: 16 }), fc.array(fc.double({ min: -1, max: 1, noNaN: true }), { minLength: 512, maxLength: 512 }), (n, vals) => {
         const m = Float64Array.from(vals.slice(0, 2 * n * n));
@@ -73,14 +74,16 @@ describe('the largest singular value by tridiagonal reduction and bisection', ()
 
   it('is exact where all singular values are equal (a unitary S: a lossless network) and where S is zero', () => {
     // a 4-port permutation (a lossless, matched circulator-like S): every σ is 1
-    const n = 4, m = new Float64Array(2 * n * n);
+    const n = 4,
+      m = new Float64Array(2 * n * n);
     for (let i = 0; i < n; i++) m[2 * (((i + 1) % n) * n + i)] = 1;
     expect(Math.abs(spectralNorm(m, 0, n) - 1)).toBeLessThanOrEqual(1e-15);
     expect(spectralNorm(new Float64Array(2 * 9), 0, 3)).toBe(0);
   });
 
-  it.skipIf(!numpy)('equals numpy.linalg.svd on 16-port matrices to 1e-12 relative (Debian\'s python3-numpy)', () => {
-    const n = 16, count = 20;
+  it.skipIf(!numpy)("equals numpy.linalg.svd on 16-port matrices to 1e-12 relative (Debian's python3-numpy)", () => {
+    const n = 16,
+      count = 20;
     let seed = 7;
     const rnd = () => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648) * 2 - 1;
     const mats = Array.from({ length: count }, () => Float64Array.from({ length: 2 * n * n }, rnd));

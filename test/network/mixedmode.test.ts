@@ -15,19 +15,55 @@ describe('mixed-mode S-parameters (Bockelman & Eisenstadt 1995), pairs (1,2) in 
 
   it('Sdd21 = ½(S31 − S32 − S41 + S42)', () => {
     const [r, c] = mixedModeIndex(mm, 'Sdd21');
-    expectComplexClose(sAt(mm, 0, r, c), comb([[1, 3, 1], [-1, 3, 2], [-1, 4, 1], [1, 4, 2]]), 1e-15);
+    expectComplexClose(
+      sAt(mm, 0, r, c),
+      comb([
+        [1, 3, 1],
+        [-1, 3, 2],
+        [-1, 4, 1],
+        [1, 4, 2],
+      ]),
+      1e-15,
+    );
   });
   it('Scc21 = ½(S31 + S32 + S41 + S42)', () => {
     const [r, c] = mixedModeIndex(mm, 'Scc21');
-    expectComplexClose(sAt(mm, 0, r, c), comb([[1, 3, 1], [1, 3, 2], [1, 4, 1], [1, 4, 2]]), 1e-15);
+    expectComplexClose(
+      sAt(mm, 0, r, c),
+      comb([
+        [1, 3, 1],
+        [1, 3, 2],
+        [1, 4, 1],
+        [1, 4, 2],
+      ]),
+      1e-15,
+    );
   });
   it('Sdc21 = ½(S31 + S32 − S41 − S42)', () => {
     const [r, c] = mixedModeIndex(mm, 'Sdc21');
-    expectComplexClose(sAt(mm, 0, r, c), comb([[1, 3, 1], [1, 3, 2], [-1, 4, 1], [-1, 4, 2]]), 1e-15);
+    expectComplexClose(
+      sAt(mm, 0, r, c),
+      comb([
+        [1, 3, 1],
+        [1, 3, 2],
+        [-1, 4, 1],
+        [-1, 4, 2],
+      ]),
+      1e-15,
+    );
   });
   it('Scd21 = ½(S31 − S32 + S41 − S42)', () => {
     const [r, c] = mixedModeIndex(mm, 'Scd21');
-    expectComplexClose(sAt(mm, 0, r, c), comb([[1, 3, 1], [-1, 3, 2], [1, 4, 1], [-1, 4, 2]]), 1e-15);
+    expectComplexClose(
+      sAt(mm, 0, r, c),
+      comb([
+        [1, 3, 1],
+        [-1, 3, 2],
+        [1, 4, 1],
+        [-1, 4, 2],
+      ]),
+      1e-15,
+    );
   });
   it('references: 100 Ω differential, 25 Ω common from 50 Ω legs', () => {
     expect(Array.from(mm.z0)).toEqual([100, 100, 25, 25]);
@@ -39,6 +75,11 @@ describe('mixed-mode S-parameters (Bockelman & Eisenstadt 1995), pairs (1,2) in 
     for (let i = 0; i < across.s.length; i++) expect(Math.abs(across.s[i] - reordered.s[i])).toBeLessThan(1e-15);
   });
   it('refuses a pairing that repeats a port', () => {
-    expect(() => toMixedMode(net, [[1, 2], [2, 4]])).toThrow(/two pairs/);
+    expect(() =>
+      toMixedMode(net, [
+        [1, 2],
+        [2, 4],
+      ]),
+    ).toThrow(/two pairs/);
   });
 });

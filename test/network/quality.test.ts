@@ -8,7 +8,11 @@ const h = Math.SQRT1_2;
 
 describe('passivity and reciprocity', () => {
   it('ideal Wilkinson (−j/√2)[[0,1,1],[1,0,0],[1,0,0]]: singular values 1, 1, 0 (Wilkinson S-matrix: Pozar, Microwave Engineering, ch. 7, from memory; its singular values by hand: SᴴS = diag(1, ½·[[1,1],[1,1]]))', () => {
-    const net = networkOf([1e9], 50, () => [[cx(0), cx(0, -h), cx(0, -h)], [cx(0, -h), cx(0), cx(0)], [cx(0, -h), cx(0), cx(0)]]);
+    const net = networkOf([1e9], 50, () => [
+      [cx(0), cx(0, -h), cx(0, -h)],
+      [cx(0, -h), cx(0), cx(0)],
+      [cx(0, -h), cx(0), cx(0)],
+    ]);
     const sv = singularValues(net.s, 0, 3);
     expectClose(sv[0], 1, 1e-12);
     expectClose(sv[1], 1, 1e-12);
@@ -18,7 +22,11 @@ describe('passivity and reciprocity', () => {
   });
 
   it('an ideal circulator (S13 = S21 = S32 = 1) is lossless and not reciprocal (Pozar §9.x, from memory)', () => {
-    const net = networkOf([1e9, 2e9], 50, () => [[cx(0), cx(0), cx(1)], [cx(1), cx(0), cx(0)], [cx(0), cx(1), cx(0)]]);
+    const net = networkOf([1e9, 2e9], 50, () => [
+      [cx(0), cx(0), cx(1)],
+      [cx(1), cx(0), cx(0)],
+      [cx(0), cx(1), cx(0)],
+    ]);
     const p = passivity(net);
     expectClose(p.max, 1, 1e-12, 'largest singular value');
     for (const v of singularValues(net.s, 0, 3)) expectClose(v, 1, 1e-12, 'lossless: all singular values 1');
@@ -29,7 +37,10 @@ describe('passivity and reciprocity', () => {
   });
 
   it('an amplifier with 10 dB gain is not passive, and says where', () => {
-    const net = networkOf([1e9, 2e9, 3e9], 50, (f) => [[cx(0.1), cx(0.01)], [cx(f === 2e9 ? 3.5 : 3), cx(0.2)]]);
+    const net = networkOf([1e9, 2e9, 3e9], 50, (f) => [
+      [cx(0.1), cx(0.01)],
+      [cx(f === 2e9 ? 3.5 : 3), cx(0.2)],
+    ]);
     const p = passivity(net);
     expect(p.passive).toBe(false);
     expect(p.atHz).toBe(2e9);
@@ -43,12 +54,16 @@ describe('passivity and reciprocity', () => {
   });
 });
 
-describe('IEEE Std 370-2020 quality metrics (values computed by hand with the algorithm of the standard\'s open reference code: an ideal delay line scores 100/100/100, the same line advanced in time has causality 0)', () => {
+describe("IEEE Std 370-2020 quality metrics (values computed by hand with the algorithm of the standard's open reference code: an ideal delay line scores 100/100/100, the same line advanced in time has causality 0)", () => {
   const freqs = Array.from({ length: 200 }, (_, k) => 50e6 * (k + 1));
-  const delayLine = (tau: number) => networkOf(freqs, 50, (f) => {
-    const t = polar(1, -360 * f * tau);
-    return [[cx(0), t], [t, cx(0)]];
-  });
+  const delayLine = (tau: number) =>
+    networkOf(freqs, 50, (f) => {
+      const t = polar(1, -360 * f * tau);
+      return [
+        [cx(0), t],
+        [t, cx(0)],
+      ];
+    });
 
   it('an ideal 1 ns line scores 100 / 100 / 100', () => {
     const q = ieee370Quality(delayLine(1e-9));
@@ -74,7 +89,11 @@ describe('IEEE Std 370-2020 quality metrics (values computed by hand with the al
   });
 
   it('reciprocity metric of a circulator: RM = Σ|Sij − Sji| / (P(P−1)) = 6/6 = 1, so RQM = 0', () => {
-    const net = networkOf([1e9, 2e9], 50, () => [[cx(0), cx(0), cx(1)], [cx(1), cx(0), cx(0)], [cx(0), cx(1), cx(0)]]);
+    const net = networkOf([1e9, 2e9], 50, () => [
+      [cx(0), cx(0), cx(1)],
+      [cx(1), cx(0), cx(0)],
+      [cx(0), cx(1), cx(0)],
+    ]);
     expectClose((reciprocityMetric(net) as { score: number }).score, 0, 1e-12);
   });
 });

@@ -3,7 +3,12 @@ import { entry } from '../../src/network/network.js';
 import { db, groupDelay, lossDb, mismatchLoss, phaseDeg, phaseUnwrappedDeg, unwrapDeg, vswr } from '../../src/network/traces.js';
 import { expectClose, networkOf, cx, polar } from '../helpers.js';
 
-const oneport = (gammas: number[]) => networkOf(gammas.map((_, k) => 1e9 + k), 50, (_, k) => [[cx(gammas[k])]]);
+const oneport = (gammas: number[]) =>
+  networkOf(
+    gammas.map((_, k) => 1e9 + k),
+    50,
+    (_, k) => [[cx(gammas[k])]],
+  );
 
 describe('return loss, VSWR and mismatch loss', () => {
   // Check values computed by hand from the definitions (RL = −20·log10|Γ|,
@@ -46,7 +51,10 @@ describe('phase and group delay of a lossless line', () => {
   const line = (len: number, er: number, freqs: number[]) =>
     networkOf(freqs, 50, (f) => {
       const ph = (-360 * f * len * Math.sqrt(er)) / c0;
-      return [[cx(0), polar(1, ph)], [polar(1, ph), cx(0)]];
+      return [
+        [cx(0), polar(1, ph)],
+        [polar(1, ph), cx(0)],
+      ];
     });
 
   it('1 m in air: group delay 3.33564 ns on a uniform grid, −1200.83° at 1 GHz unwrapped', () => {

@@ -22,7 +22,7 @@ baseline: Ours
 const errorsOf = (text: string) => loadComparisonText(text, 'cmp.yaml').errors.map((e) => `${e.line}:${e.column} ${e.message}`);
 
 describe('comparison files', () => {
-  it('the example of the issue reads: reference, bands, limits as a part\'s, candidates with sources and port maps, the baseline', () => {
+  it("the example of the issue reads: reference, bands, limits as a part's, candidates with sources and port maps, the baseline", () => {
     const r = loadComparisonText(BASE, 'cmp.yaml');
     expect(r.errors).toEqual([]);
     const c = r.value!;
@@ -42,29 +42,47 @@ describe('comparison files', () => {
   it('reference: "50 ohm", "75 Ω", 50, "50 ohms"; nothing else', () => {
     expect([parseOhms('50 ohm'), parseOhms('75 Ω'), parseOhms(50), parseOhms('50 ohms'), parseOhms('100Ω')]).toEqual([50, 75, 50, 50, 100]);
     expect([parseOhms('-50 ohm'), parseOhms('0'), parseOhms('fifty'), parseOhms('50 dB'), parseOhms(true)]).toEqual([null, null, null, null, null]);
-    expect(errorsOf(BASE.replace('reference: 50 ohm', 'reference: 50 dB'))).toEqual(['2:12 reference "50 dB" is not an impedance; expected a positive number of ohms, e.g. 50 ohm, 75 Ω or 50']);
+    expect(errorsOf(BASE.replace('reference: 50 ohm', 'reference: 50 dB'))).toEqual([
+      '2:12 reference "50 dB" is not an impedance; expected a positive number of ohms, e.g. 50 ohm, 75 Ω or 50',
+    ]);
   });
 
   it('unknown keys name the nearest valid one, at their position', () => {
-    expect(errorsOf(BASE.replace('baseline: Ours', 'baseline: Ours\ncandiates: []'))).toEqual([expect.stringMatching(/^12:1 unknown key "candiates" in the comparison file; did you mean "candidates"\?/)]);
-    expect(errorsOf(BASE.replace('{label: Vendor C, file: c.s2p}', '{label: Vendor C, fille: c.s2p}'))).toEqual([
-      expect.stringMatching(/^10:23 unknown key "fille" in candidates entry 3; did you mean "file"\?/),
-      '10:5 candidate "Vendor C" has no data: give part (a catalog part file), files (its units\' Touchstone files) or file (one)',
-    ].sort());
+    expect(errorsOf(BASE.replace('baseline: Ours', 'baseline: Ours\ncandiates: []'))).toEqual([
+      expect.stringMatching(/^12:1 unknown key "candiates" in the comparison file; did you mean "candidates"\?/),
+    ]);
+    expect(errorsOf(BASE.replace('{label: Vendor C, file: c.s2p}', '{label: Vendor C, fille: c.s2p}'))).toEqual(
+      [
+        expect.stringMatching(/^10:23 unknown key "fille" in candidates entry 3; did you mean "file"\?/),
+        '10:5 candidate "Vendor C" has no data: give part (a catalog part file), files (its units\' Touchstone files) or file (one)',
+      ].sort(),
+    );
     // conditions and assurances belong to a vendor's own units: not keys of a requirement
     expect(errorsOf(BASE.replace('max: 1.5 dB}', 'max: 1.5 dB, when: {temperature: 25}}'))).toEqual([expect.stringMatching(/^5:63 unknown key "when"/)]);
   });
 
   it('a label used twice, a baseline that is no candidate, two sources, a port map with a gap or two ports on one', () => {
-    expect(errorsOf(BASE.replace('label: Vendor C', 'label: Vendor B'))).toEqual(['10:13 the label "Vendor B" is used twice (candidates 2 and 3); each candidate needs its own']);
-    expect(errorsOf(BASE.replace('baseline: Ours', 'baseline: Theirs'))).toEqual(['11:11 baseline "Theirs" is not the label of a candidate; the candidates are "Ours", "Vendor B", "Vendor C"']);
-    expect(errorsOf(BASE.replace('file: c.s2p}', 'file: c.s2p, part: c.yaml}'))).toEqual(['10:23 candidate "Vendor C" gives part and file; give one of part (a catalog part file), files (its units\' Touchstone files) or file (one)']);
-    expect(errorsOf(BASE.replace('ports: {1: 2, 2: 1}', 'ports: {1: 2, 2: 2}'))).toEqual(['9:75 the port map of "Vendor B" maps our ports 1 and 2 to the same port 2 of the file; each of our ports needs a port of its own']);
-    expect(errorsOf(BASE.replace('ports: {1: 2, 2: 1}', 'ports: {1: 2, 3: 1}'))).toEqual(['9:65 the port map of "Vendor B" skips our port 2; our ports are numbered 1 to 3 without gaps']);
-    expect(errorsOf(BASE.replace('part: ../parts/vt-bpf-2450/part.yaml}', 'part: ../parts/vt-bpf-2450/part.yaml, ports: {1: 1, 2: 2}}'))).toEqual([expect.stringMatching(/^8:57 candidate "Ours" is a catalog part: its ports are numbered by its part file/)]);
+    expect(errorsOf(BASE.replace('label: Vendor C', 'label: Vendor B'))).toEqual([
+      '10:13 the label "Vendor B" is used twice (candidates 2 and 3); each candidate needs its own',
+    ]);
+    expect(errorsOf(BASE.replace('baseline: Ours', 'baseline: Theirs'))).toEqual([
+      '11:11 baseline "Theirs" is not the label of a candidate; the candidates are "Ours", "Vendor B", "Vendor C"',
+    ]);
+    expect(errorsOf(BASE.replace('file: c.s2p}', 'file: c.s2p, part: c.yaml}'))).toEqual([
+      '10:23 candidate "Vendor C" gives part and file; give one of part (a catalog part file), files (its units\' Touchstone files) or file (one)',
+    ]);
+    expect(errorsOf(BASE.replace('ports: {1: 2, 2: 1}', 'ports: {1: 2, 2: 2}'))).toEqual([
+      '9:75 the port map of "Vendor B" maps our ports 1 and 2 to the same port 2 of the file; each of our ports needs a port of its own',
+    ]);
+    expect(errorsOf(BASE.replace('ports: {1: 2, 2: 1}', 'ports: {1: 2, 3: 1}'))).toEqual([
+      '9:65 the port map of "Vendor B" skips our port 2; our ports are numbered 1 to 3 without gaps',
+    ]);
+    expect(errorsOf(BASE.replace('part: ../parts/vt-bpf-2450/part.yaml}', 'part: ../parts/vt-bpf-2450/part.yaml, ports: {1: 1, 2: 2}}'))).toEqual([
+      expect.stringMatching(/^8:57 candidate "Ours" is a catalog part: its ports are numbered by its part file/),
+    ]);
   });
 
-  it('the requirement is read by the part file\'s rules: an unknown figure, a band not defined, a value without its unit — all at once, in line order', () => {
+  it("the requirement is read by the part file's rules: an unknown figure, a band not defined, a value without its unit — all at once, in line order", () => {
     const text = BASE.replace('figure: insertion-loss', 'figure: insertion-los').replace('band: use, min: 15 dB', 'band: usa, min: 15');
     expect(errorsOf(text)).toEqual([
       '5:14 unknown figure "insertion-los"; did you mean "insertion-loss"?',

@@ -119,7 +119,11 @@ describe('reading part files', () => {
   });
 
   it('reports all the errors of a file at once, in line order', () => {
-    const text = good.replace('class: filter', 'class: filtre').replace('from: 2.40 GHz', 'from: 2.40').replace('figure: insertion-loss', 'figure: insertion-los').replace('revision: B', 'revison: B');
+    const text = good
+      .replace('class: filter', 'class: filtre')
+      .replace('from: 2.40 GHz', 'from: 2.40')
+      .replace('figure: insertion-loss', 'figure: insertion-los')
+      .replace('revision: B', 'revison: B');
     const errors = errorsOf(text);
     expect(errors.map((e) => [e.code, e.line])).toEqual([
       ['unknown-class', 2],
@@ -132,10 +136,7 @@ describe('reading part files', () => {
 
   it('missing required keys', () => {
     const errors = errorsOf('title: nothing else\n');
-    expect(errors.map((e) => e.message)).toEqual([
-      'the part file needs "part" (the part number)',
-      'the part file needs "class" (the component class)',
-    ]);
+    expect(errors.map((e) => e.message)).toEqual(['the part file needs "part" (the part number)', 'the part file needs "class" (the component class)']);
   });
 });
 

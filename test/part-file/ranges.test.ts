@@ -87,7 +87,10 @@ describe('dates are days of the calendar', () => {
 
 describe('YAML aliases', () => {
   it('are read like the nodes they name (YAML 1.2 anchors and aliases)', () => {
-    const text = good.replace('  - {unit: SN1, file: data/sn1.s2p}', '  - {unit: SN1, file: data/sn1.s2p, conditions: &room {temperature: 25 °C}}\n  - {unit: SN2, file: data/sn2.s2p, conditions: *room}');
+    const text = good.replace(
+      '  - {unit: SN1, file: data/sn1.s2p}',
+      '  - {unit: SN1, file: data/sn1.s2p, conditions: &room {temperature: 25 °C}}\n  - {unit: SN2, file: data/sn2.s2p, conditions: *room}',
+    );
     const r = loadPartText(text, 'part.yaml');
     expect(r.errors).toEqual([]);
     expect(r.value?.measurements.map((m) => m.conditions)).toEqual([{ temperature: '25 °C' }, { temperature: '25 °C' }]);
@@ -95,7 +98,12 @@ describe('YAML aliases', () => {
 
   it('a nested expansion bomb (10^9 nodes if expanded) ends quickly in errors, and past 1,000 alias uses in one error', () => {
     const levels = ['a: &a [x, x, x, x, x, x, x, x, x, x]'];
-    for (let i = 1; i < 9; i++) levels.push(`${String.fromCharCode(97 + i)}: &${String.fromCharCode(97 + i)} [${Array(10).fill(`*${String.fromCharCode(96 + i)}`).join(', ')}]`);
+    for (let i = 1; i < 9; i++)
+      levels.push(
+        `${String.fromCharCode(97 + i)}: &${String.fromCharCode(97 + i)} [${Array(10)
+          .fill(`*${String.fromCharCode(96 + i)}`)
+          .join(', ')}]`,
+      );
     const bomb = `part: X\nclass: filter\nmeasurements:\n  - {unit: A, file: a.s2p}\nmixed-mode: {pairs: [${levels.map((l) => `{${l}}`).join(', ')}, *i]}\n`;
     const t0 = performance.now();
     expect(loadPartText(bomb, 'part.yaml').errors.length).toBeGreaterThan(0);

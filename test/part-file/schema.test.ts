@@ -14,7 +14,9 @@ import { loadComparisonText } from '../../src/part-file/comparison.js';
 import { loadPartText } from '../../src/part-file/load.js';
 
 const CONTENT = join(import.meta.dirname, '../../content');
-const parts = readdirSync(join(CONTENT, 'parts')).map((d) => join(CONTENT, 'parts', d, 'part.yaml')).filter(existsSync);
+const parts = readdirSync(join(CONTENT, 'parts'))
+  .map((d) => join(CONTENT, 'parts', d, 'part.yaml'))
+  .filter(existsSync);
 
 describe('the part file schema', () => {
   const ajv = new Ajv2020({ allErrors: true, strict: false });
@@ -58,7 +60,9 @@ describe('the part file schema', () => {
 describe('the comparison file schema', () => {
   const ajv = new Ajv2020({ allErrors: true, strict: false });
   const check = ajv.compile(comparisonJsonSchema());
-  const files = readdirSync(join(CONTENT, 'comparisons')).filter((f) => f.endsWith('.yaml')).map((f) => join(CONTENT, 'comparisons', f));
+  const files = readdirSync(join(CONTENT, 'comparisons'))
+    .filter((f) => f.endsWith('.yaml'))
+    .map((f) => join(CONTENT, 'comparisons', f));
 
   it('content/comparison.schema.json is the generated schema (npm run schema)', () => {
     expect(readFileSync(join(CONTENT, 'comparison.schema.json'), 'utf8')).toBe(comparisonJsonSchemaText());

@@ -22,7 +22,9 @@ const ROOT = join(import.meta.dirname, '../..');
 const BIN = join(ROOT, 'bin/scatterbook.js');
 const havePoppler = spawnSync('pdfinfo', ['-v']).status === 0;
 if (!havePoppler && process.env.CI) throw new Error('PDF tests need poppler-utils in CI: apt-get install -y poppler-utils');
-const slugs = readdirSync(join(ROOT, 'content/parts')).filter((d) => !d.startsWith('.')).sort();
+const slugs = readdirSync(join(ROOT, 'content/parts'))
+  .filter((d) => !d.startsWith('.'))
+  .sort();
 let dir: string;
 let build: { status: number | null; stdout: string; stderr: string };
 
@@ -121,11 +123,20 @@ describe.skipIf(!haveBrowser || !havePoppler)('PDF datasheets', () => {
 
       // the test report: typical, worst, margin of each row, then the worst and margin of each of its units
       // (frequency figures to the resolution of the coarsest measured grid, as the pages show them)
-      const grids = readdirSync(join(ROOT, 'content/parts', slug, 'data')).map((f) => readTouchstone(readFileSync(join(ROOT, 'content/parts', slug, 'data', f)), { fileName: f }).value?.network.freqHz);
+      const grids = readdirSync(join(ROOT, 'content/parts', slug, 'data')).map(
+        (f) => readTouchstone(readFileSync(join(ROOT, 'content/parts', slug, 'data', f)), { fileName: f }).value?.network.freqHz,
+      );
       const res = coarsestResolutionHz(grids.filter((g): g is Float64Array => g !== undefined));
       const formatValue = (v: number, unit: string) => formatValueAt(v, unit, res);
       const inReport = check(join(dir, 'site/parts', slug, `${part}-report.pdf`), 'test report', 8)(/^\s*Compliance\s*$/m);
-      for (const r of json.results as Array<{ figure: string; unit: string; typical: number; worst: number; margin: number | null; units: Array<{ unit: string; worst: number; margin: number | null }> }>) {
+      for (const r of json.results as Array<{
+        figure: string;
+        unit: string;
+        typical: number;
+        worst: number;
+        margin: number | null;
+        units: Array<{ unit: string; worst: number; margin: number | null }>;
+      }>) {
         inReport(formatValue(r.typical, r.unit), `${r.figure} typical`);
         inReport(formatValue(r.worst, r.unit), `${r.figure} worst`);
         if (r.margin !== null) inReport(formatValue(r.margin, r.unit), `${r.figure} margin`);
@@ -170,7 +181,10 @@ describe.skipIf(!haveBrowser || !havePoppler)('PDF datasheets', () => {
     mkdirSync(join(content, 'parts'), { recursive: true });
     cpSync(join(ROOT, 'content/parts/vt-pad-10'), join(content, 'parts/vt-pad-10'), { recursive: true });
     mkdirSync(join(content, '_includes'));
-    writeFileSync(join(content, '_includes/notes.njk'), '<img src="https://example.invalid/tracker.png" alt=""><link rel="stylesheet" href="file:///etc/hostname"><img src="../../../../secret.png" alt="">\n');
+    writeFileSync(
+      join(content, '_includes/notes.njk'),
+      '<img src="https://example.invalid/tracker.png" alt=""><link rel="stylesheet" href="file:///etc/hostname"><img src="../../../../secret.png" alt="">\n',
+    );
     const r = run(['build', 'leaky', '--out', 'leaky-site', '--no-cache', '--pdf']);
     expect(r.status).toBe(0);
     expect(r.stderr).toContain('parts/vt-pad-10/index.html asked for https://example.invalid/tracker.png, which was refused');
@@ -181,29 +195,36 @@ describe.skipIf(!haveBrowser || !havePoppler)('PDF datasheets', () => {
 });
 
 describe('WebSockets, which pass request interception', () => {
-  it.skipIf(!haveBrowser)('a page that opens one to a local port reaches nothing, and the build reports it', async () => {
-    let connections = 0;
-    const server = createServer((_, res) => res.end('x'));
-    server.on('connection', () => connections++);
-    await new Promise<void>((ok) => server.listen(0, '127.0.0.1', ok));
-    const port = (server.address() as AddressInfo).port;
-    const content = join(dir, 'socket');
-    mkdirSync(join(content, 'parts'), { recursive: true });
-    cpSync(join(ROOT, 'content/parts/vt-pad-10'), join(content, 'parts/vt-pad-10'), { recursive: true });
-    mkdirSync(join(content, '_includes'));
-    writeFileSync(join(content, '_includes/notes.njk'), `<script>new WebSocket('ws://127.0.0.1:${port}/leak'); fetch('http://127.0.0.1:${port}/leak2').catch(() => {});</script>\n`);
-    const r = await new Promise<{ status: number | null; stderr: string }>((ok) => {
-      const child = spawn(process.execPath, [BIN, 'build', 'socket', '--out', 'socket-site', '--no-cache', '--pdf'], { cwd: dir });
-      let stderr = '';
-      child.stderr.on('data', (d) => (stderr += d));
-      child.on('close', (status) => ok({ status, stderr }));
-    });
-    server.close();
-    expect(r.status).toBe(0);
-    expect(r.stderr).toContain(`parts/vt-pad-10/index.html asked for ws://127.0.0.1:${port}/leak, which was refused`);
-    expect(r.stderr).toContain(`asked for http://127.0.0.1:${port}/leak2, which was refused`);
-    expect(connections).toBe(0);
-  }, 120_000);
+  it.skipIf(!haveBrowser)(
+    'a page that opens one to a local port reaches nothing, and the build reports it',
+    async () => {
+      let connections = 0;
+      const server = createServer((_, res) => res.end('x'));
+      server.on('connection', () => connections++);
+      await new Promise<void>((ok) => server.listen(0, '127.0.0.1', ok));
+      const port = (server.address() as AddressInfo).port;
+      const content = join(dir, 'socket');
+      mkdirSync(join(content, 'parts'), { recursive: true });
+      cpSync(join(ROOT, 'content/parts/vt-pad-10'), join(content, 'parts/vt-pad-10'), { recursive: true });
+      mkdirSync(join(content, '_includes'));
+      writeFileSync(
+        join(content, '_includes/notes.njk'),
+        `<script>new WebSocket('ws://127.0.0.1:${port}/leak'); fetch('http://127.0.0.1:${port}/leak2').catch(() => {});</script>\n`,
+      );
+      const r = await new Promise<{ status: number | null; stderr: string }>((ok) => {
+        const child = spawn(process.execPath, [BIN, 'build', 'socket', '--out', 'socket-site', '--no-cache', '--pdf'], { cwd: dir });
+        let stderr = '';
+        child.stderr.on('data', (d) => (stderr += d));
+        child.on('close', (status) => ok({ status, stderr }));
+      });
+      server.close();
+      expect(r.status).toBe(0);
+      expect(r.stderr).toContain(`parts/vt-pad-10/index.html asked for ws://127.0.0.1:${port}/leak, which was refused`);
+      expect(r.stderr).toContain(`asked for http://127.0.0.1:${port}/leak2, which was refused`);
+      expect(connections).toBe(0);
+    },
+    120_000,
+  );
 });
 
 describe('without a browser', () => {
@@ -213,7 +234,9 @@ describe('without a browser', () => {
     const env = { SCATTERBOOK_NO_BROWSER_SEARCH: '1', SCATTERBOOK_BROWSER: undefined };
     const r = run(['build', 'nb', '--out', 'nb-site', '--no-cache'], env);
     expect(r.status).toBe(0);
-    expect(r.stderr).toContain('note: no browser given, and SCATTERBOOK_NO_BROWSER_SEARCH forbids looking for one, so the site is built without PDFs; to print PDFs, install Chromium');
+    expect(r.stderr).toContain(
+      'note: no browser given, and SCATTERBOOK_NO_BROWSER_SEARCH forbids looking for one, so the site is built without PDFs; to print PDFs, install Chromium',
+    );
     expect(existsSync(join(dir, 'nb-site/parts/vt-pad-10/index.html'))).toBe(true);
     expect(existsSync(join(dir, 'nb-site/parts/vt-pad-10/VT-PAD-10.pdf'))).toBe(false);
     const strict = run(['build', 'nb', '--out', 'nb-strict', '--no-cache', '--pdf'], env);

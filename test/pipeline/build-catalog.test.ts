@@ -10,8 +10,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it, vi } from 'vitest';
 
-vi.mock('../../src/pipeline/catalog.js', async (original) => {
-  const real = await original<typeof import('../../src/pipeline/catalog.js')>();
+vi.mock('../../src/pipeline/part-page.js', async (original) => {
+  const real = await original<typeof import('../../src/pipeline/part-page.js')>();
   return {
     ...real,
     buildPartPage: (...args: Parameters<typeof real.buildPartPage>) => {
@@ -30,13 +30,16 @@ function content(slugs: string[]): string {
   for (const slug of slugs) {
     mkdirSync(join(root, 'parts', slug, 'data'), { recursive: true });
     writeFileSync(join(root, 'parts', slug, 'data/u1.s2p'), DATA);
-    writeFileSync(join(root, 'parts', slug, 'part.yaml'), `part: ${slug.toUpperCase()}\nrevision: A\nclass: attenuator\nmeasurements:\n  - {unit: U1, file: data/u1.s2p}\nbands:\n  b: {from: 1 GHz, to: 2 GHz}\nlimits:\n  - {figure: insertion-loss, on: S21, band: b, max: 2 dB}\n`);
+    writeFileSync(
+      join(root, 'parts', slug, 'part.yaml'),
+      `part: ${slug.toUpperCase()}\nrevision: A\nclass: attenuator\nmeasurements:\n  - {unit: U1, file: data/u1.s2p}\nbands:\n  b: {from: 1 GHz, to: 2 GHz}\nlimits:\n  - {figure: insertion-loss, on: S21, band: b, max: 2 dB}\n`,
+    );
   }
   return root;
 }
 
 describe('a bug on one part', () => {
-  it('is that part\'s failure, marked internal, with the part file named; the other part is built', async () => {
+  it("is that part's failure, marked internal, with the part file named; the other part is built", async () => {
     const b = await buildCatalog(content(['buggy', 'fine']), { version: 'test', cacheDir: null });
     expect(b.catalog.parts.map((p) => p.slug)).toEqual(['fine']);
     expect(b.catalog.failures).toHaveLength(1);

@@ -11,7 +11,9 @@ import { evaluatePartFile } from '../../src/pipeline/part.js';
 import { buildPlots } from '../../src/plots/model.js';
 
 const ROOT = join(import.meta.dirname, '../..');
-const slugs = readdirSync(join(ROOT, 'content/parts')).filter((d) => !d.startsWith('.')).sort();
+const slugs = readdirSync(join(ROOT, 'content/parts'))
+  .filter((d) => !d.startsWith('.'))
+  .sort();
 
 describe('demo plots', () => {
   it.each(slugs)('%s: a passing part stays out of every shaded region', async (slug) => {
@@ -25,7 +27,8 @@ describe('demo plots', () => {
       const tol = 1e-9 * (p.yDomain[1] - p.yDomain[0]);
       for (const r of p.regions) {
         const inside = (x: number, y: number) => x > r.x0 && x < r.x1 && y > Math.min(r.y0, r.y1) + tol && y < Math.max(r.y0, r.y1) - tol;
-        for (const t of [...p.traces, ...p.median]) expect(inside(t.x, t.y), `${slug} ${p.title}: ${t.trace} at ${t.x}, ${t.y} inside ${JSON.stringify(r)}`).toBe(false);
+        for (const t of [...p.traces, ...p.median])
+          expect(inside(t.x, t.y), `${slug} ${p.title}: ${t.trace} at ${t.x}, ${t.y} inside ${JSON.stringify(r)}`).toBe(false);
       }
     }
   });

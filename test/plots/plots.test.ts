@@ -35,7 +35,16 @@ describe('plot models', () => {
   const yaml = `part: P\nclass: filter\nmeasurements:\n  - {unit: A, file: a.s2p}\n  - {unit: B, file: b.s2p}\n  - {unit: C, file: c.s2p}\nbands:\n  pass: {from: 2 GHz, to: 3 GHz}\nlimits:\n  - {figure: insertion-loss, on: S21, band: pass, max: 2 dB}\n  - {figure: return-loss, on: [S11, S22], band: pass, min: 15 dB}\n`;
   const part = loadPartText(yaml, 'p.yaml').value!;
   const freqs = Array.from({ length: 41 }, (_, k) => 1e9 + k * 1e8);
-  const unit = (il: number, unitName: string) => ({ unit: unitName, file: `${unitName}.s2p`, conditions: {}, fileAt: { line: 0, column: 0 }, network: networkOf(freqs, 50, () => [[cx(0.1), cx(0)], [cx(Math.pow(10, -il / 20)), cx(0.05)]]) });
+  const unit = (il: number, unitName: string) => ({
+    unit: unitName,
+    file: `${unitName}.s2p`,
+    conditions: {},
+    fileAt: { line: 0, column: 0 },
+    network: networkOf(freqs, 50, () => [
+      [cx(0.1), cx(0)],
+      [cx(Math.pow(10, -il / 20)), cx(0.05)],
+    ]),
+  });
   const plots = buildPlots(part, [unit(1, 'A'), unit(1.5, 'B'), unit(3, 'C')]);
 
   it('draws the class defaults the part has data and limits for', () => {
@@ -84,7 +93,10 @@ describe('limits on the traces they apply to', () => {
     file: `${unitName}.s2p`,
     conditions: { temperature },
     fileAt: { line: 0, column: 0 },
-    network: networkOf(freqs, 50, () => [[cx(s11), cx(0.01)], [cx(Math.pow(10, gain / 20)), cx(0.1)]]),
+    network: networkOf(freqs, 50, () => [
+      [cx(s11), cx(0.01)],
+      [cx(Math.pow(10, gain / 20)), cx(0.1)],
+    ]),
   });
   const yaml = `part: A\nclass: amplifier\nmeasurements:\n${['U1', 'U2'].flatMap((u) => ['25 °C', '85 °C'].map((t) => `  - {unit: ${u}, file: ${u}.s2p, conditions: {temperature: ${t}}}`)).join('\n')}\nbands:\n  op: {from: 1 GHz, to: 3 GHz}\nlimits:\n  - {figure: gain, on: S21, band: op, min: 12 dB, when: {temperature: 25 °C}}\n  - {figure: gain, label: Gain over temperature, on: S21, band: op, min: 10 dB}\n  - {figure: return-loss, on: S11, band: op, min: 8 dB}\n  - {figure: return-loss, on: S22, band: op, min: 12 dB}\n`;
   const part = loadPartText(yaml, 'a.yaml').value!;
@@ -98,7 +110,7 @@ describe('limits on the traces they apply to', () => {
     expect(gain.description).toContain('for 2 measured units (4 measurements)');
   });
 
-  it('a limit restricted by when is a line in its condition\'s colour, never a region over the other condition\'s traces', () => {
+  it("a limit restricted by when is a line in its condition's colour, never a region over the other condition's traces", () => {
     // the 85 °C traces (11 dB) lie below the 25 °C limit (12 dB): a shaded region there would put a PASS part in it
     expect(gain.seriesEdges).toEqual([{ x0: 1, x1: 3, y: 12, color: gain.colors[0], dash: gain.dashes[0] }]);
     expect(gain.seriesLimits.map((l) => l.label)).toEqual(['limit for S21 at 25 °C']);
@@ -106,23 +118,30 @@ describe('limits on the traces they apply to', () => {
     for (const t of gain.traces.filter((p) => p.item === 'S21 at 85 °C')) expect(t.y).toBeGreaterThan(10);
   });
 
-  it('limits on different parameters are tied to their parameter\'s dash, not drawn alike', () => {
+  it("limits on different parameters are tied to their parameter's dash, not drawn alike", () => {
     expect(match.regions).toEqual([]);
-    const s11 = match.items.indexOf('S11 at 25 °C'), s22 = match.items.indexOf('S22 at 25 °C');
-    expect(match.seriesEdges.map((e) => [e.y, e.dash])).toEqual([[8, match.dashes[s11]], [12, match.dashes[s22]]]);
+    const s11 = match.items.indexOf('S11 at 25 °C'),
+      s22 = match.items.indexOf('S22 at 25 °C');
+    expect(match.seriesEdges.map((e) => [e.y, e.dash])).toEqual([
+      [8, match.dashes[s11]],
+      [12, match.dashes[s22]],
+    ]);
     expect(match.dashes[s11]).not.toEqual(match.dashes[s22]);
     expect(match.seriesLimits.map((l) => l.label)).toEqual(['limit for S11', 'limit for S22']);
   });
 
-  it('the axis names what is drawn: the limits\' shared label, or the class plot\'s own (Attenuation, Electrical delay)', () => {
-    const att = loadPartText(`part: T\nclass: attenuator\nmeasurements:\n  - {unit: A, file: a.s2p}\nbands:\n  all: {from: 1 GHz, to: 3 GHz}\nlimits:\n  - {figure: insertion-loss, on: S21, band: all, max: 7 dB}\n`, 't.yaml').value!;
+  it("the axis names what is drawn: the limits' shared label, or the class plot's own (Attenuation, Electrical delay)", () => {
+    const att = loadPartText(
+      `part: T\nclass: attenuator\nmeasurements:\n  - {unit: A, file: a.s2p}\nbands:\n  all: {from: 1 GHz, to: 3 GHz}\nlimits:\n  - {figure: insertion-loss, on: S21, band: all, max: 7 dB}\n`,
+      't.yaml',
+    ).value!;
     expect(buildPlots(att, [units[0]])[0].yTitle).toBe('Attenuation (dB)');
     expect(match.yTitle).toBe('Return loss (dB)');
   });
 });
 
 describe('the Smith chart', () => {
-  it('draws each unit\'s Γ inside the unit circle, its points the data themselves, and its SVG path where the axes put them', async () => {
+  it("draws each unit's Γ inside the unit circle, its points the data themselves, and its SVG path where the axes put them", async () => {
     const o = await evaluatePartFile(join(ROOT, 'content/parts/vt-amp-0560/part.yaml'), join(ROOT, 'content'));
     const smith = buildPlots(o.part!, o.units).find((p) => p.kind === 'smith')!;
     expect(smith.items).toEqual(['S11', 'S22']);

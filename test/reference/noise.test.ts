@@ -27,7 +27,12 @@ const read = (path: string) => {
 
 describe('the noise figure by the two-port noise equation', () => {
   it('by hand: NFmin 2.2 dB, Γopt 0.4∠120°, rn 25 → F = 1.6596 + 100·0.16/0.76 = 22.71, NF 13.563 dB', () => {
-    const noise = { freqHz: Float64Array.of(75e9), nfMinDb: Float64Array.of(2.2), gammaOpt: Float64Array.of(0.4 * Math.cos((120 * Math.PI) / 180), 0.4 * Math.sin((120 * Math.PI) / 180)), rnOhms: Float64Array.of(25 * 50) };
+    const noise = {
+      freqHz: Float64Array.of(75e9),
+      nfMinDb: Float64Array.of(2.2),
+      gammaOpt: Float64Array.of(0.4 * Math.cos((120 * Math.PI) / 180), 0.4 * Math.sin((120 * Math.PI) / 180)),
+      rnOhms: Float64Array.of(25 * 50),
+    };
     expectClose(noiseFigureAtZ0(noise, 50)[0], 10 * Math.log10(Math.pow(10, 0.22) + (100 * 0.16) / 0.76), 1e-12, 'NF');
     expectClose(noiseFigureAtZ0(noise, 50)[0], 13.5626, 1e-4, 'NF, to the digits worked out by hand');
   });
@@ -40,7 +45,15 @@ describe('the noise figure by the two-port noise equation', () => {
 
 describe.skipIf(!available)('against scikit-rf', () => {
   // scikit-rf prints a note about matplotlib on stdout first: the JSON is the last line
-  const ref = available ? (JSON.parse(execFileSync(PYTHON, [join(import.meta.dirname, 'skrf_noise.py'), ...FILES], { stdio: ['ignore', 'pipe', 'ignore'] }).toString().trim().split('\n').at(-1) as string) as { version: string; files: Array<{ file: string; f: number[]; nfmin_db: number[]; nf_db: number[] }> }) : null;
+  const ref = available
+    ? (JSON.parse(
+        execFileSync(PYTHON, [join(import.meta.dirname, 'skrf_noise.py'), ...FILES], { stdio: ['ignore', 'pipe', 'ignore'] })
+          .toString()
+          .trim()
+          .split('\n')
+          .at(-1) as string,
+      ) as { version: string; files: Array<{ file: string; f: number[]; nfmin_db: number[]; nf_db: number[] }> })
+    : null;
 
   it.each(FILES)('%s: NF at Z0 and NFmin at every noise frequency, to 1e-9 dB', (path) => {
     const theirs = ref?.files.find((x) => x.file === path);
@@ -56,7 +69,12 @@ describe.skipIf(!available)('against scikit-rf', () => {
   it('as a figure of a part: worst NF over the band, on the noise frequencies', () => {
     const data = read(FILES[1]);
     const theirs = ref?.files.find((x) => x.file === FILES[1]) as { f: number[]; nf_db: number[] };
-    const yaml = partYaml({ cls: 'amplifier', units: ['U1'], bands: '  b: {from: 70 GHz, to: 75 GHz}', limits: '  - {figure: noise-figure, band: b, max: 20 dB}\n  - {figure: minimum-noise-figure, band: b, max: 3 dB}' });
+    const yaml = partYaml({
+      cls: 'amplifier',
+      units: ['U1'],
+      bands: '  b: {from: 70 GHz, to: 75 GHz}',
+      limits: '  - {figure: noise-figure, band: b, max: 20 dB}\n  - {figure: minimum-noise-figure, band: b, max: 3 dB}',
+    });
     const r = resultsOf(yaml.replace('file: U1.s4p', 'file: thru.s2p'), { U1: data.network }, { U1: data.noise });
     expectClose(r.results[0].worst, Math.max(theirs.nf_db[0], theirs.nf_db[1]), 1e-9, 'worst NF over 70–75 GHz');
     expect(r.results[0].on).toEqual(['S21']);

@@ -10,7 +10,7 @@
  * the test says so (see "known departures" below). In CI these tests must run:
  * a missing scikit-rf fails them there instead of skipping.
  */
-import { execFileSync, spawnSync } from 'node:child_process';
+import { execFileSync } from 'node:child_process';
 import { mkdtempSync, readdirSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -100,7 +100,7 @@ function writeCorpus(dir: string): void {
     const s11: [number, number] = [0.05 * Math.cos(f[q] / 3e8), 0.04 * Math.sin(f[q] / 2e8)];
     const t: [number, number] = [0.93 * Math.cos(ph), 0.93 * Math.sin(ph)];
     line.set([...s11, ...t, ...t, s11[0] * 0.8, -s11[1]], q * 8);
-    for (let e = 0; e < 9; e++) three.set([0.1 * Math.cos(ph * (e + 1) / 3), 0.1 * Math.sin(ph * (e + 2) / 5)], q * 18 + 2 * e);
+    for (let e = 0; e < 9; e++) three.set([0.1 * Math.cos((ph * (e + 1)) / 3), 0.1 * Math.sin((ph * (e + 2)) / 5)], q * 18 + 2 * e);
   }
   const two = makeNetwork(f, 50, line, n);
   const tri = makeNetwork(f, 50, three, 3);
@@ -152,7 +152,8 @@ function compareComplex(ours: Float64Array, theirs: Cx[], tol: number, what: str
     const [re, im] = theirs[i];
     if (skip?.(i)) continue;
     const finiteOurs = Number.isFinite(ours[2 * i]) && Number.isFinite(ours[2 * i + 1]);
-    if ((re === null || im === null) === finiteOurs) throw new Error(`${what}[${i}]: scatterbook ${ours[2 * i]}${ours[2 * i + 1]}j, scikit-rf ${re}${im}j (one side not finite)`);
+    if ((re === null || im === null) === finiteOurs)
+      throw new Error(`${what}[${i}]: scatterbook ${ours[2 * i]}${ours[2 * i + 1]}j, scikit-rf ${re}${im}j (one side not finite)`);
     if (re === null || im === null) continue;
     const d = Math.hypot(ours[2 * i] - re, ours[2 * i + 1] - im);
     if (!(d <= tol * Math.max(1, Math.hypot(re, im)))) throw new Error(`${what}[${i}]: scatterbook ${ours[2 * i]}${ours[2 * i + 1]}j, scikit-rf ${re}${im}j`);
@@ -167,10 +168,11 @@ function perEntry(d: TouchstoneData, f: (t: ReturnType<typeof entry>) => Float64
   const n = net.ports;
   const k = net.freqHz.length;
   const out = new Float64Array(k * n * n);
-  for (let i = 1; i <= n; i++) for (let j = 1; j <= n; j++) {
-    const tr = f(entry(net, i, j));
-    for (let q = 0; q < k; q++) out[(q * n + i - 1) * n + j - 1] = tr[q];
-  }
+  for (let i = 1; i <= n; i++)
+    for (let j = 1; j <= n; j++) {
+      const tr = f(entry(net, i, j));
+      for (let q = 0; q < k; q++) out[(q * n + i - 1) * n + j - 1] = tr[q];
+    }
   return out;
 }
 
@@ -211,7 +213,9 @@ describe.skipIf(!available)(`against scikit-rf (${PYTHON})`, () => {
   });
 
   it('reads every file to the same S data, dB, phase, VSWR, group delay, Z, Y, 75 Ω renormalization, mixed-mode, ABCD and noise', () => {
-    let files = 0, values = 0, commentRefs = 0;
+    let files = 0,
+      values = 0,
+      commentRefs = 0;
     for (const [file, ref] of refs) {
       const base = file.split('/').pop() as string;
       const ours = readTouchstoneFile(file);
@@ -233,7 +237,7 @@ describe.skipIf(!available)(`against scikit-rf (${PYTHON})`, () => {
       const ph = perEntry(d, phaseDeg);
       ref.s_deg.forEach((t, i) => {
         if (t === null) return;
-        const diff = Math.abs((((ph[i] - t) % 360) + 540) % 360 - 180);
+        const diff = Math.abs(((((ph[i] - t) % 360) + 540) % 360) - 180);
         if (!(diff <= TOL * 360)) throw new Error(`${where('phase')}[${i}]: ${ph[i]} vs ${t}`);
         values++;
       });
@@ -255,7 +259,10 @@ describe.skipIf(!available)(`against scikit-rf (${PYTHON})`, () => {
       // There only the S-domain values are comparable, so Z, Y and renormalization are left out.
       const sameRef = ref.z0.every(([re, im]) => im === 0 && re === net.z0[0]);
       if (!sameRef) {
-        expect(ours.warnings.map((w) => w.code), where('warns of port impedances in comments')).toContain('comment-impedance');
+        expect(
+          ours.warnings.map((w) => w.code),
+          where('warns of port impedances in comments'),
+        ).toContain('comment-impedance');
         commentRefs++;
       }
       // scikit-rf raises where Z or Y is singular; there scatterbook gives NaN (checked in convert.test.ts).
@@ -295,21 +302,27 @@ describe.skipIf(!available)(`against scikit-rf (${PYTHON})`, () => {
     expect(values).toBeGreaterThan(100_000);
   });
 
-  it('figures over a band equal the extremes of scikit-rf\'s own traces (insertion loss, return loss, VSWR, group delay, gain)', () => {
+  it("figures over a band equal the extremes of scikit-rf's own traces (insertion loss, return loss, VSWR, group delay, gain)", () => {
     for (const rel of ['tests/ntwk1.s2p', 'tests/hfss_twoport.s2p', 'data/ring slot.s2p']) {
       const file = join(SKRF_DIR, rel);
       const ref = refs.get(file) as Ref;
       const net = (readTouchstoneFile(file).value as TouchstoneData).network;
       const k = net.freqHz.length;
-      const lo = Math.floor(k / 5), hi = Math.floor((3 * k) / 4); // band edges on measured points: no interpolation
+      const lo = Math.floor(k / 5),
+        hi = Math.floor((3 * k) / 4); // band edges on measured points: no interpolation
       const fmt = (hz: number) => `${hz} Hz`;
-      const yaml = `part: R\nclass: generic\nmeasurements:\n  - {unit: U, file: u.s2p}\nbands:\n  b: {from: ${fmt(net.freqHz[lo])}, to: ${fmt(net.freqHz[hi])}}\nlimits:\n` +
+      const yaml =
+        `part: R\nclass: generic\nmeasurements:\n  - {unit: U, file: u.s2p}\nbands:\n  b: {from: ${fmt(net.freqHz[lo])}, to: ${fmt(net.freqHz[hi])}}\nlimits:\n` +
         '  - {figure: insertion-loss, on: S21, band: b, max: 100 dB}\n  - {figure: return-loss, on: S11, band: b, min: 0 dB}\n  - {figure: vswr, on: S22, band: b, max: 1000}\n' +
         '  - {figure: group-delay, on: S21, band: b, max: 1 s}\n  - {figure: gain, on: S21, band: b, min: -100 dB}\n';
       const r = resultsOf(yaml, { U: net }).results;
       const at = (arr: (number | null)[], i: number, j: number) => Array.from({ length: hi - lo + 1 }, (_, q) => arr[((lo + q) * 2 + i) * 2 + j] as number);
-      const s21db = at(ref.s_db, 1, 0), s11db = at(ref.s_db, 0, 0), vswr22 = at(ref.vswr, 1, 1), gd21 = at(ref.group_delay as number[], 1, 0);
-      const near = (a: number, b: number, tol: number, what: string) => expect(Math.abs(a - b), `${rel} ${what}: ${a} vs ${b}`).toBeLessThanOrEqual(tol * Math.max(1, Math.abs(b)));
+      const s21db = at(ref.s_db, 1, 0),
+        s11db = at(ref.s_db, 0, 0),
+        vswr22 = at(ref.vswr, 1, 1),
+        gd21 = at(ref.group_delay as number[], 1, 0);
+      const near = (a: number, b: number, tol: number, what: string) =>
+        expect(Math.abs(a - b), `${rel} ${what}: ${a} vs ${b}`).toBeLessThanOrEqual(tol * Math.max(1, Math.abs(b)));
       near(r[0].worst, Math.max(...s21db.map((v) => -v)), TOL, 'worst insertion loss');
       near(r[1].worst, Math.min(...s11db.map((v) => -v)), TOL, 'worst return loss');
       near(r[2].worst, Math.max(...vswr22), TOL, 'worst VSWR');
@@ -318,4 +331,3 @@ describe.skipIf(!available)(`against scikit-rf (${PYTHON})`, () => {
     }
   });
 });
-

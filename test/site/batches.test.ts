@@ -17,7 +17,12 @@ const BIN = join(ROOT, 'bin/scatterbook.js');
 describe('pages written in batches', () => {
   it('runs of three parts give the same site as one run', () => {
     const dir = mkdtempSync(join(tmpdir(), 'scatterbook-batches-'));
-    const build = (out: string, env: Record<string, string> = {}) => spawnSync(process.execPath, [BIN, 'build', join(ROOT, 'content'), '--out', out, '--no-pdf', '--no-cache'], { cwd: dir, encoding: 'utf8', env: { ...process.env, ...env } });
+    const build = (out: string, env: Record<string, string> = {}) =>
+      spawnSync(process.execPath, [BIN, 'build', join(ROOT, 'content'), '--out', out, '--no-pdf', '--no-cache'], {
+        cwd: dir,
+        encoding: 'utf8',
+        env: { ...process.env, ...env },
+      });
     expect(build('one').status).toBe(0);
     expect(build('runs', { SCATTERBOOK_PAGE_BATCH: '3' }).status).toBe(0);
     const one = snapshot(join(dir, 'one'));

@@ -18,7 +18,9 @@ import { serveFolder, type StaticServer } from '../support/static-server.js';
 
 const ROOT = join(import.meta.dirname, '../..');
 const BIN = join(ROOT, 'bin/scatterbook.js');
-const slugs = readdirSync(join(ROOT, 'content/parts')).filter((d) => !d.startsWith('.')).sort();
+const slugs = readdirSync(join(ROOT, 'content/parts'))
+  .filter((d) => !d.startsWith('.'))
+  .sort();
 let out: string;
 let server: StaticServer;
 let browser: Browser;
@@ -37,7 +39,16 @@ afterAll(async () => {
 });
 
 interface FiguresJson {
-  results: Array<{ figure: string; limit: { max?: number; min?: number; nominal?: number; tolerance?: number } | null; typical: number; worst: number; worstAtHz: number | null; margin: number | null; pass: boolean | null; units: Array<{ unit: string; worst: number; atHz: number | null; margin: number | null; pass: boolean | null }> }>;
+  results: Array<{
+    figure: string;
+    limit: { max?: number; min?: number; nominal?: number; tolerance?: number } | null;
+    typical: number;
+    worst: number;
+    worstAtHz: number | null;
+    margin: number | null;
+    pass: boolean | null;
+    units: Array<{ unit: string; worst: number; atHz: number | null; margin: number | null; pass: boolean | null }>;
+  }>;
 }
 
 /** What `scatterbook figures --json` says of a demo part. */
@@ -65,7 +76,9 @@ async function open(path: string): Promise<{ page: import('puppeteer-core').Page
 describe.skipIf(!haveBrowser)('the demo site in Chromium', () => {
   it('the catalog index lists every part, grouped by class, with a link that works', async () => {
     const { page, report } = await open('index.html');
-    const rows = await page.$$eval('.class-group:not(.comparisons) .catalog-table tbody tr th a', (as) => as.map((a) => [a.textContent, a.getAttribute('href')]));
+    const rows = await page.$$eval('.class-group:not(.comparisons) .catalog-table tbody tr th a', (as) =>
+      as.map((a) => [a.textContent, a.getAttribute('href')]),
+    );
     expect(rows.length).toBe(slugs.length);
     const groups = await page.$$eval('.class-group:not(.comparisons) h2', (hs) => hs.map((h) => h.textContent));
     expect(groups.length).toBeGreaterThanOrEqual(8);
@@ -82,10 +95,16 @@ describe.skipIf(!haveBrowser)('the demo site in Chromium', () => {
     expect(link).toBe('comparisons/ism-filter-shortlist/index.html');
     await index.page.close();
     const { page, report } = await open('comparisons/ism-filter-shortlist/index.html');
-    const cli = JSON.parse(spawnSync(process.execPath, [BIN, 'compare', join(ROOT, 'content/comparisons/ism-filter-shortlist.yaml'), '--json'], { encoding: 'utf8' }).stdout);
+    const cli = JSON.parse(
+      spawnSync(process.execPath, [BIN, 'compare', join(ROOT, 'content/comparisons/ism-filter-shortlist.yaml'), '--json'], { encoding: 'utf8' }).stdout,
+    );
     const embedded = JSON.parse(await page.$eval('#comparison-json', (e) => e.textContent ?? ''));
     expect(embedded).toEqual(cli);
-    const cells = await page.$$eval('.candidates-table tbody tr', (trs) => trs.map((tr) => Array.from(tr.querySelectorAll('td.cell')).map((td) => (td.getAttribute('data-value') === null ? null : Number(td.getAttribute('data-value'))))));
+    const cells = await page.$$eval('.candidates-table tbody tr', (trs) =>
+      trs.map((tr) =>
+        Array.from(tr.querySelectorAll('td.cell')).map((td) => (td.getAttribute('data-value') === null ? null : Number(td.getAttribute('data-value')))),
+      ),
+    );
     cli.candidates.forEach((c: { coverage: string; results: Array<{ worst: number }> }, k: number) => {
       cells.forEach((row, i) => {
         if (c.coverage === 'full') expect(row[k], `candidate ${k} check ${i}`).toBe(c.results[i].worst);
@@ -99,13 +118,19 @@ describe.skipIf(!haveBrowser)('the demo site in Chromium', () => {
     expect(failing.length).toBeGreaterThan(0);
     for (const t of failing) expect(t).toContain('FAIL');
     // every plot: one legend key per candidate, the same colour and dash as the table's header
-    const heads = await page.$$eval('.candidates-table thead th[data-candidate] line', (ls) => ls.map((l) => `${l.getAttribute('stroke')} ${l.getAttribute('stroke-dasharray')}`));
+    const heads = await page.$$eval('.candidates-table thead th[data-candidate] line', (ls) =>
+      ls.map((l) => `${l.getAttribute('stroke')} ${l.getAttribute('stroke-dasharray')}`),
+    );
     expect(new Set(heads).size).toBe(cli.candidates.length);
-    const legends = await page.$$eval('.plots figure.plot', (fs) => fs.map((f) => Array.from(f.querySelectorAll('figcaption .key line')).map((l) => `${l.getAttribute('stroke')} ${l.getAttribute('stroke-dasharray')}`)));
+    const legends = await page.$$eval('.plots figure.plot', (fs) =>
+      fs.map((f) => Array.from(f.querySelectorAll('figcaption .key line')).map((l) => `${l.getAttribute('stroke')} ${l.getAttribute('stroke-dasharray')}`)),
+    );
     expect(legends.length).toBeGreaterThanOrEqual(4);
     for (const l of legends) expect(l.slice(0, cli.candidates.length)).toEqual(heads);
     // each candidate's median drawn (one line each), the requirement's regions shaded
-    const plots = await page.$$eval('.plots figure.plot > svg', (ss) => ss.map((s) => ({ median: s.querySelectorAll('.median_traces_marks path').length, regions: s.querySelectorAll('.limit_regions_marks path').length })));
+    const plots = await page.$$eval('.plots figure.plot > svg', (ss) =>
+      ss.map((s) => ({ median: s.querySelectorAll('.median_traces_marks path').length, regions: s.querySelectorAll('.limit_regions_marks path').length })),
+    );
     for (const p of plots) {
       expect(p.median).toBeGreaterThanOrEqual(2);
       expect(p.regions).toBeGreaterThan(0);
@@ -125,14 +150,17 @@ describe.skipIf(!haveBrowser)('the demo site in Chromium', () => {
         expect(await page.$(`#${id}`), `${slug}: section #${id}`).not.toBeNull();
       }
       // what the customer's datasheet leaves to the test report
-      for (const id of ['compliance-title', 'measurements-title', 'quality-title']) expect(await page.$(`#${id}`), `${slug}: no #${id} on the datasheet`).toBeNull();
+      for (const id of ['compliance-title', 'measurements-title', 'quality-title'])
+        expect(await page.$(`#${id}`), `${slug}: no #${id} on the datasheet`).toBeNull();
       const plots = await page.$$eval('figure.plot > svg', (svgs) =>
         svgs.map((s) => ({
           title: s.querySelector('title')?.textContent ?? '',
           desc: s.querySelector('desc')?.textContent ?? '',
           role: s.getAttribute('role'),
           median: s.querySelectorAll('.median_traces_marks path, .smith_traces_marks path').length,
-          regions: s.querySelectorAll('.limit_regions_marks path').length + s.querySelectorAll('.series_limit_edges_marks line, .series_limit_edges_marks path').length,
+          regions:
+            s.querySelectorAll('.limit_regions_marks path').length +
+            s.querySelectorAll('.series_limit_edges_marks line, .series_limit_edges_marks path').length,
         })),
       );
       expect(plots.length, `${slug}: plots`).toBeGreaterThanOrEqual(2);
@@ -142,7 +170,10 @@ describe.skipIf(!haveBrowser)('the demo site in Chromium', () => {
         expect(p.desc).toContain('measured unit');
         expect(p.median, `${slug} ${p.title}: traces`).toBeGreaterThan(0);
       }
-      expect(plots.some((p) => p.regions > 0), `${slug}: some plot shows limits`).toBe(true);
+      expect(
+        plots.some((p) => p.regions > 0),
+        `${slug}: some plot shows limits`,
+      ).toBe(true);
       // the specification table: typical and limits in the row of their result
       const json = figuresJson(slug);
       const rows = await page.$$eval('tr.spec-row[data-result]', (trs) =>
@@ -196,7 +227,13 @@ describe.skipIf(!haveBrowser)('the demo site in Chromium', () => {
             at: num(summary, 'at'),
             margin: num(summary, 'margin'),
             verdict: summary.querySelector('.verdict')?.textContent,
-            units: Array.from(b.querySelectorAll('tr.unit')).map((u) => ({ unit: u.getAttribute('data-unit'), worst: num(u, 'worst'), at: num(u, 'at'), margin: num(u, 'margin'), verdict: u.querySelector('.verdict')?.textContent })),
+            units: Array.from(b.querySelectorAll('tr.unit')).map((u) => ({
+              unit: u.getAttribute('data-unit'),
+              worst: num(u, 'worst'),
+              at: num(u, 'at'),
+              margin: num(u, 'margin'),
+              verdict: u.querySelector('.verdict')?.textContent,
+            })),
           };
         }),
       );
@@ -211,7 +248,10 @@ describe.skipIf(!haveBrowser)('the demo site in Chromium', () => {
         expect(row.verdict).toBe(r.pass === null ? 'report' : r.pass ? 'PASS' : 'FAIL');
         r.units.forEach((u, j) => {
           expect(row.units[j].unit).toBe(u.unit);
-          expect(same(row.units[j].worst, u.worst) && same(row.units[j].at, u.atHz) && same(row.units[j].margin, u.margin), `${slug} row ${i} unit ${u.unit}`).toBe(true);
+          expect(
+            same(row.units[j].worst, u.worst) && same(row.units[j].at, u.atHz) && same(row.units[j].margin, u.margin),
+            `${slug} row ${i} unit ${u.unit}`,
+          ).toBe(true);
         });
       });
       expect(report.errors).toEqual([]);

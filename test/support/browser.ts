@@ -17,7 +17,15 @@ export const haveBrowser = browserPath() !== null;
 if (!haveBrowser && process.env.CI) throw new Error('page tests need Chromium in CI: apt-get install -y chromium');
 
 export async function launch(): Promise<Browser> {
-  const args = ['--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic', `--user-data-dir=${mkdtempSync(join(tmpdir(), 'scatterbook-chromium-'))}`];
+  const args = [
+    '--disable-gpu',
+    '--disable-background-networking',
+    '--disable-component-update',
+    '--disable-sync',
+    '--no-first-run',
+    '--disable-quic',
+    `--user-data-dir=${mkdtempSync(join(tmpdir(), 'scatterbook-chromium-'))}`,
+  ];
   if (process.getuid?.() === 0) args.push('--no-sandbox');
   return puppeteer.launch({ executablePath: browserPath() as string, headless: true, args });
 }

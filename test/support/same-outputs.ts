@@ -45,7 +45,8 @@ function snapshot(tool: string, out: string): void {
     save(`read-${relative(tool, f)}`, ['read', relative(tool, f), '--json']);
   }
   for (const slug of readdirSync(join(tool, 'content/parts')).sort()) save(`figures-${slug}`, ['figures', `content/parts/${slug}/part.yaml`, '--json']);
-  for (const f of readdirSync(join(tool, 'content/comparisons')).filter((n) => n.endsWith('.yaml'))) save(`compare-${f}`, ['compare', `content/comparisons/${f}`, '--json']);
+  for (const f of readdirSync(join(tool, 'content/comparisons')).filter((n) => n.endsWith('.yaml')))
+    save(`compare-${f}`, ['compare', `content/comparisons/${f}`, '--json']);
 }
 
 const work = mkdtempSync(join(tmpdir(), 'scatterbook-same-'));
@@ -60,16 +61,20 @@ try {
   // the site's marker and manifest name the tool's build (a hash of its code), which a change of structure changes by design
   const toolBound = (f: string) => /(^|\/)(\.scatterbook-site|manifest\.json|figures\.json|figures\.csv)$/.test(f) && f.startsWith('site/');
   const differ = [...new Set([...before, ...after])].sort().filter((f) => {
-    const a = join(work, 'before', f), b = join(work, 'after', f);
+    const a = join(work, 'before', f),
+      b = join(work, 'after', f);
     if (!existsSync(a) || !existsSync(b)) return true;
-    const ta = readFileSync(a, 'utf8'), tb = readFileSync(b, 'utf8');
+    const ta = readFileSync(a, 'utf8'),
+      tb = readFileSync(b, 'utf8');
     if (ta === tb) return false;
     if (!toolBound(f)) return true;
     // equal once the tool's build id is taken out
     const id = /"(tool|build|toolBuild)":\s*\{[^}]*\}|[0-9a-f]{64}/g;
     return ta.replace(id, '') !== tb.replace(id, '');
   });
-  console.log(`${before.length} outputs of ${ref} against ${after.length} of the working tree: ${differ.length ? `${differ.length} differ` : 'all equal, byte for byte'}`);
+  console.log(
+    `${before.length} outputs of ${ref} against ${after.length} of the working tree: ${differ.length ? `${differ.length} differ` : 'all equal, byte for byte'}`,
+  );
   for (const f of differ) console.log(`  differs: ${f}`);
   process.exitCode = differ.length ? 1 : 0;
 } finally {

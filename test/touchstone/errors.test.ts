@@ -113,7 +113,11 @@ describe('errors name the line and what was expected', () => {
   });
 
   it('an empty file, and a file with only an option line', () => {
-    expect(bad('')).toMatchObject({ code: 'no-data', line: 0, message: 'the file is empty (0 bytes); expected a Touchstone file ("# GHz S MA R 50" followed by the data)' });
+    expect(bad('')).toMatchObject({
+      code: 'no-data',
+      line: 0,
+      message: 'the file is empty (0 bytes); expected a Touchstone file ("# GHz S MA R 50" followed by the data)',
+    });
     expect(bad('! nothing here\n')).toMatchObject({ code: 'missing-option-line', line: 0 });
     expect(bad('! nothing here\n# GHz S RI\n')).toMatchObject({ code: 'no-data', line: 0 });
   });
@@ -129,6 +133,9 @@ describe('errors name the line and what was expected', () => {
   });
 
   it('data after the network data in version 2 without [Noise Data]', () => {
-    expect(bad(v2('[Number of Ports] 1\n[Number of Frequencies] 1\n[Network Data]\n1 0 0\n[Number of Ports] 2\n'), 'a.ts')).toMatchObject({ code: 'keyword-order', line: 7 });
+    expect(bad(v2('[Number of Ports] 1\n[Number of Frequencies] 1\n[Network Data]\n1 0 0\n[Number of Ports] 2\n'), 'a.ts')).toMatchObject({
+      code: 'keyword-order',
+      line: 7,
+    });
   });
 });

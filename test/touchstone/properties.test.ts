@@ -45,7 +45,10 @@ const caseArb: fc.Arbitrary<Case> = fc
     fc.record({
       p: fc.constant(p),
       freq: freqGrid(p.points),
-      values: fc.array(fc.double({ min: -1, max: 1, noNaN: true }), { minLength: 2 * p.ports * p.ports * p.points, maxLength: 2 * p.ports * p.ports * p.points }),
+      values: fc.array(fc.double({ min: -1, max: 1, noNaN: true }), {
+        minLength: 2 * p.ports * p.ports * p.points,
+        maxLength: 2 * p.ports * p.ports * p.points,
+      }),
       z0: fc.array(fc.double({ min: 1, max: 200, noNaN: true }), { minLength: p.ports, maxLength: p.ports }),
       noise: fc.array(fc.double({ min: 0, max: 0.95, noNaN: true }), { minLength: 8, maxLength: 8 }),
     }),
@@ -55,11 +58,14 @@ const caseArb: fc.Arbitrary<Case> = fc
     const a = 0.7 / n; // keeps ‖S‖₂ < 1, so I ± S are invertible for the Y/Z/H/G forms
     const s = Float64Array.from(values, (v) => v * a);
     if (p.symmetric) {
-      for (let k = 0; k < p.points; k++) for (let i = 0; i < n; i++) for (let j = 0; j < i; j++) {
-        const lo = 2 * ((k * n + i) * n + j), hi = 2 * ((k * n + j) * n + i);
-        s[hi] = s[lo];
-        s[hi + 1] = s[lo + 1];
-      }
+      for (let k = 0; k < p.points; k++)
+        for (let i = 0; i < n; i++)
+          for (let j = 0; j < i; j++) {
+            const lo = 2 * ((k * n + i) * n + j),
+              hi = 2 * ((k * n + j) * n + i);
+            s[hi] = s[lo];
+            s[hi + 1] = s[lo + 1];
+          }
     }
     const perPort = p.version !== '1.1' && p.perPort;
     const z = perPort ? Float64Array.from(z0) : new Float64Array(n).fill(z0[0]);
@@ -200,9 +206,27 @@ describe('read(write(x)) = x', () => {
 });
 
 const CODES = new Set([
-  'not-text', 'bad-number', 'number-range', 'value-count', 'frequency-order', 'duplicate-frequency', 'missing-option-line',
-  'unknown-option', 'option-value', 'negative-magnitude', 'unknown-keyword', 'keyword-value', 'keyword-order', 'missing-keyword',
-  'frequency-count', 'noise-count', 'noise-data', 'port-count', 'parameter-ports', 'version', 'no-data',
+  'not-text',
+  'bad-number',
+  'number-range',
+  'value-count',
+  'frequency-order',
+  'duplicate-frequency',
+  'missing-option-line',
+  'unknown-option',
+  'option-value',
+  'negative-magnitude',
+  'unknown-keyword',
+  'keyword-value',
+  'keyword-order',
+  'missing-keyword',
+  'frequency-count',
+  'noise-count',
+  'noise-data',
+  'port-count',
+  'parameter-ports',
+  'version',
+  'no-data',
 ]);
 
 function checkOutcome(bytes: Uint8Array, name: string): void {
@@ -225,7 +249,10 @@ function checkOutcome(bytes: Uint8Array, name: string): void {
 
 describe('the reader never crashes', () => {
   it('on random bytes', () => {
-    fc.assert(fc.property(fc.uint8Array({ maxLength: 400 }), fc.constantFrom('a.s1p', 'a.s2p', 'a.s4p', 'a.ts'), (b, name) => checkOutcome(b, name)), { numRuns: 500 });
+    fc.assert(
+      fc.property(fc.uint8Array({ maxLength: 400 }), fc.constantFrom('a.s1p', 'a.s2p', 'a.s4p', 'a.ts'), (b, name) => checkOutcome(b, name)),
+      { numRuns: 500 },
+    );
   });
 
   it('on mutated valid files', () => {

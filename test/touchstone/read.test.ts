@@ -16,7 +16,9 @@ function ok(text: string, fileName = 'x.s2p'): TouchstoneData {
 
 describe('version 1 layout', () => {
   it('2-port order is N11 N21 N12 N22 ("21 before 12"), MA, with comments, tabs and blank lines', () => {
-    const d = ok(`! a comment\n\n# GHz S MA R 50\n! freq |S11| ∠S11 |S21| ∠S21 |S12| ∠S12 |S22| ∠S22\n1.0\t0.5 10  0.9 -20 0.01 30  0.4 40 ! trailing comment\n\n2.0 0.5 11 0.9 -21 0.01 31 0.4 41\n`);
+    const d = ok(
+      `! a comment\n\n# GHz S MA R 50\n! freq |S11| ∠S11 |S21| ∠S21 |S12| ∠S12 |S22| ∠S22\n1.0\t0.5 10  0.9 -20 0.01 30  0.4 40 ! trailing comment\n\n2.0 0.5 11 0.9 -21 0.01 31 0.4 41\n`,
+    );
     const net = d.network;
     expect(net.ports).toBe(2);
     expect(Array.from(net.freqHz)).toEqual([1e9, 2e9]);
@@ -125,14 +127,20 @@ describe('Y, Z, H and G data are converted to S', () => {
   it('version 2 Z is in ohms and H11 in ohms', () => {
     const z = ok('[Version] 2.0\n# GHz Z RI R 50\n[Number of Ports] 1\n[Number of Frequencies] 1\n[Network Data]\n1 100 0\n[End]\n', 'a.ts');
     expectComplexClose(sAt(z.network, 0, 1, 1), [1 / 3, 0], 1e-15);
-    const h = ok('[Version] 2.0\n# GHz H RI R 50\n[Number of Ports] 2\n[Two-Port Data Order] 21_12\n[Number of Frequencies] 1\n[Network Data]\n1 50 0 -1 0 1 0 0 0\n', 'b.ts');
+    const h = ok(
+      '[Version] 2.0\n# GHz H RI R 50\n[Number of Ports] 2\n[Two-Port Data Order] 21_12\n[Number of Frequencies] 1\n[Network Data]\n1 50 0 -1 0 1 0 0 0\n',
+      'b.ts',
+    );
     expectComplexClose(sAt(h.network, 0, 1, 1), [1 / 3, 0], 1e-15);
     expectComplexClose(sAt(h.network, 0, 2, 1), [2 / 3, 0], 1e-15);
   });
 
   it('version 2 Y with per-port references: two 100 Ω loads seen from 50 Ω and 25 Ω', () => {
     // two uncoupled 100 Ω loads, Y = diag(0.01 S): each port sees (100 − R)/(100 + R)
-    const d = ok('[Version] 2.0\n# GHz Y RI\n[Number of Ports] 2\n[Two-Port Data Order] 12_21\n[Number of Frequencies] 1\n[Reference] 50\n 25\n[Network Data]\n1 0.01 0 0 0 0 0 0.01 0\n[End]\n', 'c.ts');
+    const d = ok(
+      '[Version] 2.0\n# GHz Y RI\n[Number of Ports] 2\n[Two-Port Data Order] 12_21\n[Number of Frequencies] 1\n[Reference] 50\n 25\n[Network Data]\n1 0.01 0 0 0 0 0 0.01 0\n[End]\n',
+      'c.ts',
+    );
     expect(Array.from(d.network.z0)).toEqual([50, 25]);
     expectComplexClose(sAt(d.network, 0, 1, 1), [(100 - 50) / 150, 0], 1e-15, 'S11: 100 Ω load at 50 Ω');
     expectComplexClose(sAt(d.network, 0, 2, 2), [(100 - 25) / 125, 0], 1e-15, 'S22: 100 Ω load at 25 Ω');
@@ -150,7 +158,13 @@ describe('version 2 keywords', () => {
   });
 
   it('[Reference] may continue on the next line and carry comments; it overrides R', () => {
-    const d = ok(v2('[Number of Ports] 3\n[Number of Frequencies] 1\n[Reference] 50 ! first\n  75 ! second line\n 100\n[Network Data]\n1 ' + '0 0 '.repeat(9) + '\n', '# GHz S RI R 20'), 'r.ts');
+    const d = ok(
+      v2(
+        '[Number of Ports] 3\n[Number of Frequencies] 1\n[Reference] 50 ! first\n  75 ! second line\n 100\n[Network Data]\n1 ' + '0 0 '.repeat(9) + '\n',
+        '# GHz S RI R 20',
+      ),
+      'r.ts',
+    );
     expect(Array.from(d.network.z0)).toEqual([50, 75, 100]);
   });
 
@@ -164,18 +178,29 @@ describe('version 2 keywords', () => {
   });
 
   it('[Mixed-Mode Order] is kept, and sets differential 2R and common R/2 references', () => {
-    const d = ok(v2('[Number of Ports] 4\n[Number of Frequencies] 1\n[Mixed-Mode Order] D1,2 D3,4 C1,2 C3,4\n[Network Data]\n1 ' + '0 0 '.repeat(16) + '\n'), 'm.ts');
+    const d = ok(
+      v2('[Number of Ports] 4\n[Number of Frequencies] 1\n[Mixed-Mode Order] D1,2 D3,4 C1,2 C3,4\n[Network Data]\n1 ' + '0 0 '.repeat(16) + '\n'),
+      'm.ts',
+    );
     expect(d.info.mixedModeOrder).toEqual(['D1,2', 'D3,4', 'C1,2', 'C3,4']);
     expect(Array.from(d.network.z0)).toEqual([100, 100, 25, 25]);
   });
 
   it('[Begin Information] … [End Information] is skipped and kept', () => {
-    const d = ok(v2('[Number of Ports] 1\n[Begin Information]\n[Manufacturer] Nowhere Labs\n[End Information]\n[Number of Frequencies] 1\n[Network Data]\n1 0.1 0\n'), 'i.ts');
+    const d = ok(
+      v2('[Number of Ports] 1\n[Begin Information]\n[Manufacturer] Nowhere Labs\n[End Information]\n[Number of Frequencies] 1\n[Network Data]\n1 0.1 0\n'),
+      'i.ts',
+    );
     expect(d.info.information).toEqual(['[Manufacturer] Nowhere Labs']);
   });
 
   it('[Noise Data] with Rn in ohms; version 1 noise with Rn normalized to R', () => {
-    const d = ok(v2('[Number of Ports] 2\n[Two-Port Data Order] 12_21\n[Number of Frequencies] 1\n[Number of Noise Frequencies] 2\n[Network Data]\n2 0 0 0 0 3 0 0 0\n[Noise Data]\n1 0.5 0.3 90 10\n3 0.7 0.2 -90 12\n[End]\n'), 'n.ts');
+    const d = ok(
+      v2(
+        '[Number of Ports] 2\n[Two-Port Data Order] 12_21\n[Number of Frequencies] 1\n[Number of Noise Frequencies] 2\n[Network Data]\n2 0 0 0 0 3 0 0 0\n[Noise Data]\n1 0.5 0.3 90 10\n3 0.7 0.2 -90 12\n[End]\n',
+      ),
+      'n.ts',
+    );
     expect(Array.from(d.noise?.rnOhms ?? [])).toEqual([10, 12]);
     expect(Array.from(d.noise?.freqHz ?? [])).toEqual([1e9, 3e9]);
     expectComplexClose([d.noise!.gammaOpt[0], d.noise!.gammaOpt[1]], [0, 0.3], 1e-16);
@@ -188,14 +213,21 @@ describe('version 2 keywords', () => {
   });
 
   it('2.1: per-port R values on the option line', () => {
-    const d = ok('[Version] 2.1\n# GHz S RI R 50 75\n[Number of Ports] 2\n[Two-Port Data Order] 12_21\n[Number of Frequencies] 1\n[Network Data]\n1 0 0 0 0 0 0 0 0\n[End]\n', 'p.ts');
+    const d = ok(
+      '[Version] 2.1\n# GHz S RI R 50 75\n[Number of Ports] 2\n[Two-Port Data Order] 12_21\n[Number of Frequencies] 1\n[Network Data]\n1 0 0 0 0 0 0 0 0\n[End]\n',
+      'p.ts',
+    );
     expect(d.info.version).toBe('2.1');
     expect(Array.from(d.network.z0)).toEqual([50, 75]);
   });
 
   it('reads the same bytes fed one at a time as at once', async () => {
     const { TouchstoneParser, parseTouchstone } = await import('../../src/touchstone/parse.js');
-    const text = new TextEncoder().encode(v2('[Number of Ports] 2\n[Two-Port Data Order] 21_12\n[Number of Frequencies] 3\n[Network Data]\n1 1 2 3 4 5 6 7 8\n2 1 2 3 4 5 6 7 8\n3 1 2 3 4 5 6 7 8\n'));
+    const text = new TextEncoder().encode(
+      v2(
+        '[Number of Ports] 2\n[Two-Port Data Order] 21_12\n[Number of Frequencies] 3\n[Network Data]\n1 1 2 3 4 5 6 7 8\n2 1 2 3 4 5 6 7 8\n3 1 2 3 4 5 6 7 8\n',
+      ),
+    );
     const p = new TouchstoneParser({ fileName: 'x.ts' });
     for (let i = 0; i < text.length; i++) p.push(text.subarray(i, i + 1));
     const one = p.finish();
@@ -219,4 +251,3 @@ describe('frequencies are exact in every unit', () => {
     expect(Array.from(d.network.s)).toEqual([0.5, -0.25, 5, -0, 1e-3, 100, 1.25, 7]);
   });
 });
-

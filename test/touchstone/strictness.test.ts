@@ -17,7 +17,7 @@ function read(text: string, fileName = 'a.s2p') {
 }
 
 describe('required keywords a file can go without: read, with a warning naming the rule', () => {
-  it('a version 2 two-port without [Two-Port Data Order] (as the standard\'s own Example 20) is read as 21_12, the order version 1 implies', () => {
+  it("a version 2 two-port without [Two-Port Data Order] (as the standard's own Example 20) is read as 21_12, the order version 1 implies", () => {
     const r = read(`${HEAD}[Number of Frequencies] 2\n[Network Data]\n${POINTS}[End]\n`);
     expect(r.errors).toEqual([]);
     expect(r.codes).toEqual(['missing-two-port-order']);
@@ -34,7 +34,9 @@ describe('required keywords a file can go without: read, with a warning naming t
     const r = read(`${HEAD}[Two-Port Data Order] 12_21\n[Number of Frequencies] 2\n[Network Data]\n${POINTS}`);
     expect(r.errors).toEqual([]);
     expect(r.codes).toEqual(['missing-end']);
-    expect(r.warnings[0].message).toBe('the version 2 file ends at line 8 without [End], which the standard requires; its data hold the 2 points [Number of Frequencies] declares, so they are read');
+    expect(r.warnings[0].message).toBe(
+      'the version 2 file ends at line 8 without [End], which the standard requires; its data hold the 2 points [Number of Frequencies] declares, so they are read',
+    );
     expect(r.value!.network.freqHz).toEqual(new Float64Array([1e9, 2e9]));
   });
 
@@ -52,13 +54,17 @@ describe('what cannot be read unambiguously is refused, saying where the file en
     const r = read(`${HEAD}[Two-Port Data Order] 12_21\n[Number of Frequencies] 3\n[Network Data]\n1 0.5 0 0.4 10 0.3 20 0.2 30\n2 0.5 0 0.4 10\n`);
     expect(r.value).toBeNull();
     expect(r.errors[0]).toMatchObject({ code: 'frequency-count', line: 0 });
-    expect(r.errors[0].message).toBe('the file ends at line 8, without [End], after 1 of the 3 points [Number of Frequencies] declares and 5 of the 9 values of the next: it looks cut short');
+    expect(r.errors[0].message).toBe(
+      'the file ends at line 8, without [End], after 1 of the 3 points [Number of Frequencies] declares and 5 of the 9 values of the next: it looks cut short',
+    );
   });
 
   it('a line of prose in the data is called text, not a bad number, and a point it cuts short is named', () => {
     const r = read('# GHz S MA R 50\n1 0.5 0 0.5 0 0.5 0 0.5 0\n2 0.5 0 0.5 0\nMeasured by the lab on Tuesday\n');
     expect(r.errors[0]).toMatchObject({ code: 'bad-number', line: 4, column: 1 });
-    expect(r.errors[0].message).toBe('this line is text, not data ("Measured by the lab on Tuesday"); a comment starts with "!"; the point that starts at line 3 has 5 of its 9 values, so the data end here cut short');
+    expect(r.errors[0].message).toBe(
+      'this line is text, not data ("Measured by the lab on Tuesday"); a comment starts with "!"; the point that starts at line 3 has 5 of its 9 values, so the data end here cut short',
+    );
   });
 
   it('a token that is no number inside a line is still named as one', () => {

@@ -48,7 +48,11 @@ function yToAbcd([y11, y12, y21, y22]: M2): M2 {
 export function gainBlock(d: GainBlockDesign, freqHz: Float64Array, rnd: Random, temperatureC: number): Network {
   const v = () => 1 + rnd.normal(0, d.tolerance);
   const gm = d.gm * v() * (1 + d.gmTempco * (temperatureC - 25));
-  const cgs = d.cgs * v(), cgd = d.cgd * v(), cds = d.cds * v(), rf = d.rf * v(), rds = d.rds * v();
+  const cgs = d.cgs * v(),
+    cgd = d.cgd * v(),
+    cds = d.cds * v(),
+    rf = d.rf * v(),
+    rds = d.rds * v();
   const data = new Float64Array(freqHz.length * 8);
   freqHz.forEach((f, k) => {
     const w = 2 * Math.PI * f;

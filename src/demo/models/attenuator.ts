@@ -24,11 +24,9 @@ export function piPad(d: PadDesign, freqHz: Float64Array, rnd: Random, z0 = 50):
   const rsh = (z0 * (k + 1)) / (k - 1);
   const rse = (z0 * (k * k - 1)) / (2 * k);
   const vary = () => 1 + rnd.normal(0, d.tolerance);
-  const r1 = rsh * vary(), r2 = rsh * vary(), r3 = rse * vary() * (1 + (d.seriesError ?? 0));
+  const r1 = rsh * vary(),
+    r2 = rsh * vary(),
+    r3 = rse * vary() * (1 + (d.seriesError ?? 0));
   const shuntBranch = (r: number) => shunt((w): C => add(div(ONE, c(r, w * d.shuntL)), c(0, w * d.padC)));
-  return chainToNetwork(
-    [shuntBranch(r1), series((w) => div(ONE, add(c(1 / r3), c(0, w * d.seriesC)))), shuntBranch(r2)],
-    freqHz,
-    z0,
-  );
+  return chainToNetwork([shuntBranch(r1), series((w) => div(ONE, add(c(1 / r3), c(0, w * d.seriesC)))), shuntBranch(r2)], freqHz, z0);
 }

@@ -33,7 +33,8 @@ export interface BandpassDesign {
 }
 
 export function bandpass(design: BandpassDesign, freqHz: Float64Array, rnd: Random, z0 = 50): Network {
-  const w1 = 2 * Math.PI * design.lowHz, w2 = 2 * Math.PI * design.highHz;
+  const w1 = 2 * Math.PI * design.lowHz,
+    w2 = 2 * Math.PI * design.highHz;
   const w0 = Math.sqrt(w1 * w2);
   const delta = (w2 - w1) / w0;
   const g = chebyshevG(design.order, design.rippleDb);

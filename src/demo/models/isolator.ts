@@ -40,11 +40,13 @@ function circulatorAt(f: number, f0: number, q: number, loss: number): C[][] {
   ].map((v) => v.map((z) => c(z.re / Math.sqrt(3), z.im / Math.sqrt(3))));
   const lambdas = [l1, lp, lm];
   const s: C[][] = [0, 1, 2].map(() => [c(0), c(0), c(0)]);
-  for (let k = 0; k < 3; k++) for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) {
-    // λk · u_k[i] · conj(u_k[j])
-    const term = mul(lambdas[k], mul(u[k][i], c(u[k][j].re, -u[k][j].im)));
-    s[i][j] = add(s[i][j], term);
-  }
+  for (let k = 0; k < 3; k++)
+    for (let i = 0; i < 3; i++)
+      for (let j = 0; j < 3; j++) {
+        // λk · u_k[i] · conj(u_k[j])
+        const term = mul(lambdas[k], mul(u[k][i], c(u[k][j].re, -u[k][j].im)));
+        s[i][j] = add(s[i][j], term);
+      }
   return s;
 }
 
@@ -56,10 +58,11 @@ export function isolator(d: CirculatorDesign, freqHz: Float64Array, rnd: Random)
   freqHz.forEach((f, k) => {
     const s = circulatorAt(f, f0, q, d.loss);
     const den = sub(ONE, mul(s[2][2], gl));
-    for (let i = 0; i < 2; i++) for (let j = 0; j < 2; j++) {
-      const v = add(s[i][j], div(mul(mul(s[i][2], gl), s[2][j]), den));
-      out.set([v.re, v.im], 8 * k + 2 * (2 * i + j));
-    }
+    for (let i = 0; i < 2; i++)
+      for (let j = 0; j < 2; j++) {
+        const v = add(s[i][j], div(mul(mul(s[i][2], gl), s[2][j]), den));
+        out.set([v.re, v.im], 8 * k + 2 * (2 * i + j));
+      }
   });
   return makeNetwork(freqHz, 50, out, 2);
 }

@@ -27,11 +27,26 @@ export interface LineSpread {
 }
 
 /** 2-way Wilkinson: ports 1 (common), 2, 3; √2·Z0 quarter-wave arms, 2·Z0 resistor. */
-export function wilkinson(f0: number, er: number, loss: { a: number; b: number }, spread: LineSpread & { resistor: number }, freqHz: Float64Array, rnd: Random): Network {
+export function wilkinson(
+  f0: number,
+  er: number,
+  loss: { a: number; b: number },
+  spread: LineSpread & { resistor: number },
+  freqHz: Float64Array,
+  rnd: Random,
+): Network {
   const z = (zn: number) => zn * (1 + rnd.normal(0, spread.impedance));
   const l = () => quarterWave(f0, er) * (1 + rnd.normal(0, spread.length));
   const alpha = lineLoss(loss.a, loss.b);
-  return nodalNetwork(3, [tline(0, 1, z(50 * Math.SQRT2), l(), er, alpha), tline(0, 2, z(50 * Math.SQRT2), l(), er, alpha), resistor(1, 2, 100 * (1 + rnd.normal(0, spread.resistor)))], freqHz);
+  return nodalNetwork(
+    3,
+    [
+      tline(0, 1, z(50 * Math.SQRT2), l(), er, alpha),
+      tline(0, 2, z(50 * Math.SQRT2), l(), er, alpha),
+      resistor(1, 2, 100 * (1 + rnd.normal(0, spread.resistor))),
+    ],
+    freqHz,
+  );
 }
 
 /**
@@ -43,7 +58,11 @@ export function branchLine(f0: number, er: number, loss: { a: number; b: number 
   const l = () => quarterWave(f0, er) * (1 + rnd.normal(0, spread.length));
   const alpha = lineLoss(loss.a, loss.b);
   const za = 50 / Math.SQRT2;
-  return nodalNetwork(4, [tline(0, 1, z(za), l(), er, alpha), tline(3, 2, z(za), l(), er, alpha), tline(0, 3, z(50), l(), er, alpha), tline(1, 2, z(50), l(), er, alpha)], freqHz);
+  return nodalNetwork(
+    4,
+    [tline(0, 1, z(za), l(), er, alpha), tline(3, 2, z(za), l(), er, alpha), tline(0, 3, z(50), l(), er, alpha), tline(1, 2, z(50), l(), er, alpha)],
+    freqHz,
+  );
 }
 
 /**
@@ -55,7 +74,15 @@ export function branchLine(f0: number, er: number, loss: { a: number; b: number 
  * and the rest by the coupler's two symmetries. Unequal mode permittivities
  * (as in microstrip) give the finite directivity of a real coupler.
  */
-export function coupledLine(f0: number, couplingDb: number, modes: { erEven: number; erOdd: number; zScale?: number }, loss: { a: number; b: number }, spread: LineSpread, freqHz: Float64Array, rnd: Random): Network {
+export function coupledLine(
+  f0: number,
+  couplingDb: number,
+  modes: { erEven: number; erOdd: number; zScale?: number },
+  loss: { a: number; b: number },
+  spread: LineSpread,
+  freqHz: Float64Array,
+  rnd: Random,
+): Network {
   const k = Math.pow(10, -couplingDb / 20);
   // zScale: the built coupler's impedance √(Z0e·Z0o) against 50 Ω (a manufacturing offset that sets its match, not its coupling)
   const zs = modes.zScale ?? 1;
@@ -67,11 +94,21 @@ export function coupledLine(f0: number, couplingDb: number, modes: { erEven: num
   const odd = chainToNetwork([line(z0o, len, modes.erOdd, alpha)], freqHz);
   const s = new Float64Array(freqHz.length * 32);
   for (let q = 0; q < freqHz.length; q++) {
-    const ge = c(even.s[8 * q], even.s[8 * q + 1]), go = c(odd.s[8 * q], odd.s[8 * q + 1]);
-    const te = c(even.s[8 * q + 4], even.s[8 * q + 5]), to = c(odd.s[8 * q + 4], odd.s[8 * q + 5]);
+    const ge = c(even.s[8 * q], even.s[8 * q + 1]),
+      go = c(odd.s[8 * q], odd.s[8 * q + 1]);
+    const te = c(even.s[8 * q + 4], even.s[8 * q + 5]),
+      to = c(odd.s[8 * q + 4], odd.s[8 * q + 5]);
     const half = (x: C) => c(x.re / 2, x.im / 2);
-    const a = half(add(ge, go)), cp = half(sub(ge, go)), t = half(add(te, to)), iso = half(sub(te, to));
-    const m: C[][] = [[a, t, cp, iso], [t, a, iso, cp], [cp, iso, a, t], [iso, cp, t, a]];
+    const a = half(add(ge, go)),
+      cp = half(sub(ge, go)),
+      t = half(add(te, to)),
+      iso = half(sub(te, to));
+    const m: C[][] = [
+      [a, t, cp, iso],
+      [t, a, iso, cp],
+      [cp, iso, a, t],
+      [iso, cp, t, a],
+    ];
     for (let i = 0; i < 4; i++) for (let j = 0; j < 4; j++) s.set([m[i][j].re, m[i][j].im], 32 * q + 2 * (4 * i + j));
   }
   return makeNetwork(freqHz, 50, s, 4);
@@ -82,13 +119,23 @@ export function coupledLine(f0: number, couplingDb: number, modes: { erEven: num
  * each end a connector transition modelled as a shunt capacitance between
  * two short series inductances.
  */
-export function cable(lengthM: number, z0: number, er: number, loss: { a: number; b: number }, connector: { l: number; c: number }, freqHz: Float64Array, rnd: Random): Network {
+export function cable(
+  lengthM: number,
+  z0: number,
+  er: number,
+  loss: { a: number; b: number },
+  connector: { l: number; c: number },
+  freqHz: Float64Array,
+  rnd: Random,
+): Network {
   const zc = z0 * (1 + rnd.normal(0, 0.004));
   const len = lengthM * (1 + rnd.normal(0, 0.001));
   const cc = () => connector.c * (1 + rnd.normal(0, 0.1));
   const lc = () => connector.l * (1 + rnd.normal(0, 0.1));
   const transition = () => {
-    const l1 = lc(), cap = cc(), l2 = lc();
+    const l1 = lc(),
+      cap = cc(),
+      l2 = lc();
     return [series((w: number) => c(0, w * l1)), shunt((w: number) => c(0, w * cap)), series((w: number) => c(0, w * l2))];
   };
   return chainToNetwork([...transition(), line(zc, len, er, lineLoss(loss.a, loss.b)), ...transition()], freqHz);
