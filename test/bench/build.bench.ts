@@ -10,6 +10,7 @@
  * the compiled code in dist/, as `scatterbook build` does (plots then render
  * in worker threads).
  */
+import { spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -27,7 +28,21 @@ import { printAll } from '../../dist/pdf/print.js';
 import { printJobs } from '../../dist/pdf/jobs.js';
 import { writeTouchstone } from '../../src/touchstone/write.js';
 
-const PARTS = Number(process.env.BENCH_PARTS ?? 200);
+// BENCH_PARTS=200,1000,2000 runs one process per size (each with its own peak RSS) and prints them side by side
+const SIZES = (process.env.BENCH_PARTS ?? '200').split(',').map(Number);
+if (SIZES.length > 1) {
+  const rows: string[] = [];
+  for (const n of SIZES) {
+    const r = spawnSync(process.execPath, [...process.execArgv, ...process.argv.slice(1)], { env: { ...process.env, BENCH_PARTS: String(n), BENCH_PDFS: '0' }, encoding: 'utf8', stdio: ['ignore', 'pipe', 'inherit'] });
+    process.stdout.write(r.stdout);
+    const full = /full build: ([\d.]+) s total.*peak RSS so far (\d+) MB/.exec(r.stdout);
+    const again = /rebuild after one part changed: ([\d.]+) s total.*peak RSS so far (\d+) MB/.exec(r.stdout);
+    rows.push(`${String(n).padStart(6)} parts: full build ${full?.[1] ?? '?'} s, peak RSS ${full?.[2] ?? '?'} MB; rebuild ${again?.[1] ?? '?'} s, peak RSS ${again?.[2] ?? '?'} MB (goal: under 1,500 MB at 2,000 parts)`);
+  }
+  console.log(`\npeak memory by catalog size:\n${rows.join('\n')}`);
+  process.exit(0);
+}
+const PARTS = SIZES[0];
 const root = join(tmpdir(), `scatterbook-bench-catalog-${PARTS}`);
 const content = join(root, 'content');
 
@@ -107,7 +122,8 @@ await closePlotPool();
 
 // PDFs: print BENCH_PDFS datasheets (default 100) of the site just built, in one browser
 const found = await findBrowser(undefined);
-if ('missing' in found) console.log(`PDFs: skipped (${found.missing})`);
+if (process.env.BENCH_PDFS === '0') console.log('PDFs: skipped (BENCH_PDFS=0)');
+else if ('missing' in found) console.log(`PDFs: skipped (${found.missing})`);
 else {
   const b = await buildCatalog(content, { version: 'bench', cacheDir: cache });
   const jobs = printJobs(b.catalog, join(root, 'site'), 'bench').slice(0, Number(process.env.BENCH_PDFS ?? 100));
