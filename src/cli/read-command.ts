@@ -51,34 +51,19 @@ function isJsonNumber(src: Uint8Array, a: number, n: number): boolean {
  * in RI format holds every value exactly as the JSON needs it (the reader
  * converts each decimal text exactly), so each number's bytes are copied as
  * written, where they are a JSON number (else, and for −0, it is formatted).
- * Formatting 640,000 doubles costs more than reading the file.
+ * Formatting 640,000 doubles costs more than reading the file; one pass
+ * writes into a buffer sized for the worst case, returned as bytes.
  */
-function sJsonFromText(data: TouchstoneData, text: { source: Uint8Array; tokens: Float64Array }): string {
+function sJsonFromText(data: TouchstoneData, text: { source: Uint8Array; tokens: Float64Array }): Uint8Array {
   const net = data.network;
   const n = net.ports,
     k = net.freqHz.length;
   const { source, tokens } = text;
   const s = net.s;
-  // first pass: each value's text — its bytes as written (their length), or a formatted number — and the total size
-  const count = s.length;
-  const lengths = new Int32Array(count);
-  const formatted = new Map<number, string>();
-  let size = 0;
-  for (let p = 0; p < count; p++) {
-    const t = tokens[p],
-      v = s[p];
-    const a = Math.floor(t / 64),
-      len = t % 64;
-    if (len > 0 && !(v === 0 && source[a] === 45) && isJsonNumber(source, a, len)) lengths[p] = len;
-    else {
-      const f = Number.isFinite(v) ? String(v) : 'null';
-      formatted.set(p, f);
-      lengths[p] = f.length;
-    }
-    size += lengths[p];
-  }
-  // punctuation: per point "[" "]" and a comma, per row "[" "]" and a comma, per entry "[" "," "]" and a comma
-  size += k * (3 + n * (3 + n * 4));
+  // at most: every token's bytes (or 24 for a formatted double), plus per point "[" "]" and a comma,
+  // per row "[" "]" and a comma, per entry "[" "," "]" and a comma
+  let size = k * (3 + n * (3 + n * 4));
+  for (let p = 0; p < s.length; p++) size += Math.max(tokens[p] % 64, 24);
   const out = new Uint8Array(size);
   let w = 0;
   for (let q = 0; q < k; q++) {
@@ -93,13 +78,16 @@ function sJsonFromText(data: TouchstoneData, text: { source: Uint8Array; tokens:
         for (let part = 0; part < 2; part++) {
           const p = 2 * ((q * n + i) * n + j) + part;
           if (part) out[w++] = 44;
-          const f = formatted.size ? formatted.get(p) : undefined;
-          if (f === undefined) {
-            const a = Math.floor(tokens[p] / 64),
-              len = lengths[p];
+          const t = tokens[p];
+          const a = Math.floor(t / 64),
+            len = t % 64;
+          if (len > 0 && !(s[p] === 0 && source[a] === 45) && isJsonNumber(source, a, len)) {
             for (let c = 0; c < len; c++) out[w + c] = source[a + c];
             w += len;
-          } else for (let c = 0; c < f.length; c++) out[w++] = f.charCodeAt(c);
+          } else {
+            const f = jsonNumber(s[p]);
+            for (let c = 0; c < f.length; c++) out[w++] = f.charCodeAt(c);
+          }
         }
         out[w++] = 93;
       }
@@ -107,15 +95,22 @@ function sJsonFromText(data: TouchstoneData, text: { source: Uint8Array; tokens:
     }
     out[w++] = 93;
   }
-  return Buffer.from(out.buffer, out.byteOffset, w).toString('latin1');
+  return out.subarray(0, w);
 }
 
-/** The JSON of `read --json`, written directly (no object per value); with the file's text, S values are copied as written (sJsonFromText). */
+/** The JSON of `read --json` as one string. */
 export function readJson(data: TouchstoneData, text?: { source: Uint8Array; tokens: Float64Array }): string {
+  return readJsonParts(data, text)
+    .map((p) => (typeof p === 'string' ? p : Buffer.from(p.buffer, p.byteOffset, p.byteLength).toString('latin1')))
+    .join('');
+}
+
+/** The JSON of `read --json` in pieces to write one after another (no object per value); with the file's text, S values are copied as written (sJsonFromText), as bytes. */
+function readJsonParts(data: TouchstoneData, text?: { source: Uint8Array; tokens: Float64Array }): Array<string | Uint8Array> {
   const net = data.network;
   const n = net.ports;
   const k = net.freqHz.length;
-  const parts: string[] = [];
+  const parts: Array<string | Uint8Array> = [];
   // mixedModeOrder names the rows' modes, in the order of the matrix and of referenceOhms (null: single-ended ports 1…n)
   parts.push(
     `{"ports":${n},"version":${JSON.stringify(data.info.version)},"parameter":${JSON.stringify(data.info.parameter)},"mixedModeOrder":${JSON.stringify(data.info.mixedModeOrder)},`,
@@ -147,7 +142,7 @@ export function readJson(data: TouchstoneData, text?: { source: Uint8Array; toke
     );
   }
   parts.push('}\n');
-  return parts.join('');
+  return parts;
 }
 
 export function readSummary(name: string, data: TouchstoneData, t: Terminal): string {
@@ -221,7 +216,21 @@ export const readCommand: Command = {
       for (const e of result.errors) t.stderr.write(`${formatDiagnostic(file, e, 'error')}\n`);
       return EXIT.badInput;
     }
-    t.stdout.write(json ? readJson(result.value, result.text) : readSummary(file, result.value, t));
+    if (!json) t.stdout.write(readSummary(file, result.value, t));
+    else {
+      // the S array goes out as the bytes it was copied into (a latin1 string of 15 MB would be encoded again)
+      const parts = readJsonParts(result.value, result.text);
+      let pending = '';
+      for (const p of parts) {
+        if (typeof p === 'string') pending += p;
+        else {
+          t.stdout.write(pending);
+          pending = '';
+          t.stdout.write(p);
+        }
+      }
+      t.stdout.write(pending);
+    }
     return EXIT.ok;
   },
 };

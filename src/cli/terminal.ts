@@ -3,7 +3,8 @@
  * is set (https://no-color.org, common practice); progress only on a TTY.
  */
 export interface Output {
-  write(text: string): void;
+  /** Text, or bytes already encoded (read --json's S array). */
+  write(chunk: string | Uint8Array): void;
   readonly isTTY?: boolean;
 }
 
