@@ -26,6 +26,7 @@ import { EXIT, type Command } from './command.js';
 import { progress } from './progress.js';
 import { painter, type Terminal } from './terminal.js';
 import type { Catalog } from '../model/catalog.js';
+import { renderedPages, renderSalt } from '../io/rendered-pages.js';
 
 export const BUILD_FLAGS: FlagSpec[] = [
   { name: 'out', value: true, help: 'the output folder (default _site)' },
@@ -201,7 +202,9 @@ async function buildWith(o: BuildOptions, t: Terminal, started: number, spillDir
   const staging = stagingFolder(o.out);
   let pdfNote = '';
   try {
-    await writeSite(o.content, site, staging.dir);
+    // unchanged parts' pages come from the last build's, kept beside the cache under the same key and the catalog-wide values they show
+    const rendered = o.cacheDir && built.cacheBase ? renderedPages(join(o.cacheDir, 'pages'), renderSalt(built.cacheBase, site)) : null;
+    await writeSite(o.content, site, staging.dir, { rendered });
     if (found) {
       const report = await printAll(found, staging.dir, printJobs(site, staging.dir, packageVersion()), {
         paper: site.site.paper,

@@ -59,6 +59,8 @@ export interface CatalogBuild {
   readonly catalog: Catalog;
   readonly settingsErrors: readonly string[];
   readonly cacheHits: number;
+  /** With a cache: what keys its entries besides each part's files (for the rendered pages kept beside it). */
+  readonly cacheBase: string | null;
 }
 
 export async function buildCatalog(contentRoot: string, options: BuildCatalogOptions): Promise<CatalogBuild> {
@@ -112,5 +114,10 @@ export async function buildCatalog(contentRoot: string, options: BuildCatalogOpt
     }
     comparisons.push(await buildComparisonPage(outcome, slug, contentRoot, file));
   }
-  return { catalog: assembleCatalog(settings, pages, failures, options.version, comparisons), settingsErrors: errors, cacheHits: hits };
+  return {
+    catalog: assembleCatalog(settings, pages, failures, options.version, comparisons),
+    settingsErrors: errors,
+    cacheHits: hits,
+    cacheBase: cache?.base ?? null,
+  };
 }

@@ -71,6 +71,8 @@ export function toolBuildId(): string {
 }
 
 export interface PartCache {
+  /** What keys every entry besides the part's own files: the tool's build, site.yaml, the template overrides. */
+  readonly base: string;
   /** The cached page of a part, or null when there is none or any input changed. */
   read(slug: string, partFile: string): PartPage | null;
   write(slug: string, partFile: string, page: PartPage): void;
@@ -101,6 +103,7 @@ export function openCache(dir: string, content: string, siteText: string): PartC
   };
   const entryPath = (slug: string, key: string) => join(dir, `${slug}-${key}.json`);
   return {
+    base,
     read(slug, partFile) {
       const key = keyOf(partFile);
       if (!key) return null;

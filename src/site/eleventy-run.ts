@@ -3,6 +3,8 @@ import { join } from 'node:path';
 import Eleventy from '@11ty/eleventy';
 import { PACKAGE_ROOT, PAGES_DIR, scatterbookSite } from './plugin.js';
 import type { Catalog } from '../model/catalog.js';
+import { copyAssets } from '../io/assets.js';
+import type { RenderedPages } from '../io/rendered-pages.js';
 
 /**
  * Parts per Eleventy run: Eleventy keeps every page it renders until its run
@@ -12,18 +14,41 @@ import type { Catalog } from '../model/catalog.js';
  */
 export const PAGE_BATCH = Number(process.env.SCATTERBOOK_PAGE_BATCH) >= 1 ? Math.floor(Number(process.env.SCATTERBOOK_PAGE_BATCH)) : 100;
 
-export async function writeSite(content: string, catalog: Catalog, outDir: string, batch = PAGE_BATCH): Promise<void> {
-  const { parts, reports, comparisons } = catalog.pages;
-  if (parts.length <= batch) return writeRun(content, catalog, outDir);
-  for (let i = 0; i < parts.length; i += batch) {
-    const slice = parts.slice(i, i + batch);
-    const slugs = new Set(slice.map((p) => p.slug));
-    await writeRun(
-      content,
-      { ...catalog, pages: { parts: slice, reports: reports.filter((p) => slugs.has(p.slug)), comparisons: i === 0 ? comparisons : [] } },
-      outDir,
-    );
+export interface WriteSiteOptions {
+  /** Parts per Eleventy run (PAGE_BATCH). */
+  readonly batch?: number;
+  /** Pages kept from earlier builds: an unchanged part's pages are copied instead of rendered (io/rendered-pages.ts). */
+  readonly rendered?: RenderedPages | null;
+}
+
+export async function writeSite(content: string, catalog: Catalog, outDir: string, options: WriteSiteOptions = {}): Promise<void> {
+  const batch = options.batch ?? PAGE_BATCH;
+  const rendered = options.rendered ?? null;
+  const { comparisons } = catalog.pages;
+  let { parts, reports } = catalog.pages;
+  if (rendered) {
+    // the pages of parts rendered before from the same inputs are copied, with the data files they link
+    const again = parts.filter((p) => !rendered.restore(p, outDir));
+    const copied = parts.filter((p) => !again.includes(p));
+    const files = copied.flatMap((p) => [...p.dataFiles, ...p.releasedFiles].map((d) => ({ from: join(content, d.from), to: d.url })));
+    copyAssets({ files, errors: [] }, outDir);
+    const slugs = new Set(again.map((p) => p.slug));
+    parts = again;
+    reports = reports.filter((p) => slugs.has(p.slug));
   }
+  if (parts.length <= batch) await writeRun(content, { ...catalog, pages: { parts, reports, comparisons } }, outDir);
+  else {
+    for (let i = 0; i < parts.length; i += batch) {
+      const slice = parts.slice(i, i + batch);
+      const slugs = new Set(slice.map((p) => p.slug));
+      await writeRun(
+        content,
+        { ...catalog, pages: { parts: slice, reports: reports.filter((p) => slugs.has(p.slug)), comparisons: i === 0 ? comparisons : [] } },
+        outDir,
+      );
+    }
+  }
+  if (rendered) for (const p of parts) rendered.keep(p, outDir);
 }
 
 async function writeRun(content: string, catalog: Catalog, outDir: string): Promise<void> {

@@ -22,22 +22,30 @@ import { grid } from '../../src/demo/catalog.js';
 import { buildCatalog } from '../../dist/pipeline/build-catalog.js';
 import { newStageTimes } from '../../dist/pipeline/part.js';
 import { writeSite } from '../../dist/site/eleventy-run.js';
+import { renderedPages, renderSalt } from '../../dist/io/rendered-pages.js';
 import { closePlotPool } from '../../dist/plots/pool.js';
 import { findBrowser } from '../../dist/pdf/discover.js';
 import { printAll } from '../../dist/pdf/print.js';
 import { printJobs } from '../../dist/pdf/jobs.js';
 import { writeTouchstone } from '../../src/touchstone/write.js';
+import Eleventy from '@11ty/eleventy';
 
 // BENCH_PARTS=200,1000,2000 runs one process per size (each with its own peak RSS) and prints them side by side
 const SIZES = (process.env.BENCH_PARTS ?? '200').split(',').map(Number);
 if (SIZES.length > 1) {
   const rows: string[] = [];
   for (const n of SIZES) {
-    const r = spawnSync(process.execPath, [...process.execArgv, ...process.argv.slice(1)], { env: { ...process.env, BENCH_PARTS: String(n), BENCH_PDFS: '0' }, encoding: 'utf8', stdio: ['ignore', 'pipe', 'inherit'] });
+    const r = spawnSync(process.execPath, [...process.execArgv, ...process.argv.slice(1)], {
+      env: { ...process.env, BENCH_PARTS: String(n), BENCH_PDFS: '0' },
+      encoding: 'utf8',
+      stdio: ['ignore', 'pipe', 'inherit'],
+    });
     process.stdout.write(r.stdout);
     const full = /full build: ([\d.]+) s total.*peak RSS so far (\d+) MB/.exec(r.stdout);
     const again = /rebuild after one part changed: ([\d.]+) s total.*peak RSS so far (\d+) MB/.exec(r.stdout);
-    rows.push(`${String(n).padStart(6)} parts: full build ${full?.[1] ?? '?'} s, peak RSS ${full?.[2] ?? '?'} MB; rebuild ${again?.[1] ?? '?'} s, peak RSS ${again?.[2] ?? '?'} MB (goal: under 1,500 MB at 2,000 parts)`);
+    rows.push(
+      `${String(n).padStart(6)} parts: full build ${full?.[1] ?? '?'} s, peak RSS ${full?.[2] ?? '?'} MB; rebuild ${again?.[1] ?? '?'} s, peak RSS ${again?.[2] ?? '?'} MB (goal: under 1,500 MB at 2,000 parts)`,
+    );
   }
   console.log(`\npeak memory by catalog size:\n${rows.join('\n')}`);
   process.exit(0);
@@ -97,6 +105,7 @@ console.log(`catalog ready in ${s(performance.now() - tg)} (${root})`);
 const cache = join(root, 'cache');
 rmSync(cache, { recursive: true, force: true });
 
+let lastTotal = 0;
 async function build(label: string): Promise<void> {
   const times = newStageTimes();
   const t0 = performance.now();
@@ -104,9 +113,14 @@ async function build(label: string): Promise<void> {
   rmSync(spillDir, { recursive: true, force: true });
   const b = await buildCatalog(content, { version: 'bench', cacheDir: cache, times, spillDir });
   const t1 = performance.now();
-  await writeSite(content, b.catalog, join(root, 'site'));
+  // as scatterbook build does: unchanged parts' pages copied from those kept beside the cache
+  rmSync(join(root, 'site'), { recursive: true, force: true });
+  await writeSite(content, b.catalog, join(root, 'site'), {
+    rendered: b.cacheBase ? renderedPages(join(cache, 'pages'), renderSalt(b.cacheBase, b.catalog)) : null,
+  });
   times.pages = performance.now() - t1;
   const total = performance.now() - t0;
+  lastTotal = total;
   if (b.catalog.failures.length) throw new Error(b.catalog.failures[0].messages.join('\n'));
   console.log(
     `${label}: ${s(total)} total — read ${s(times.read)}, figures ${s(times.figures)}, plots ${s(times.plots)}, pages ${s(times.pages)}; ` +
@@ -119,6 +133,29 @@ const yaml = join(content, 'parts', 'bench-007', 'part.yaml');
 writeFileSync(yaml, `${readFileSync(yaml, 'utf8')}# edited at ${Date.now()}\n`);
 await build('rebuild after one part changed');
 await closePlotPool();
+
+// the reference for a rebuild: Eleventy writing as many trivial pages (a datasheet and a report per part) with nothing else to do
+{
+  const dir = join(root, 'trivial');
+  rmSync(dir, { recursive: true, force: true });
+  mkdirSync(join(dir, 'in'), { recursive: true });
+  writeFileSync(
+    join(dir, 'in/page.njk'),
+    '---\npagination:\n  data: items\n  size: 1\n  alias: item\npermalink: "p/{{ item }}/index.html"\n---\n<!doctype html><title>{{ item }}</title><p>{{ item }}</p>\n',
+  );
+  writeFileSync(join(dir, 'config.mjs'), "export default function () { return { templateFormats: ['njk'] }; }\n");
+  const items = Array.from({ length: 2 * PARTS }, (_, i) => `page-${i}`);
+  const t0 = performance.now();
+  const elev = new Eleventy(join(dir, 'in'), join(dir, 'out'), {
+    quietMode: true,
+    configPath: join(dir, 'config.mjs'),
+    config: (c) => c.addGlobalData('items', items),
+  });
+  (elev as unknown as { logger: { overrideLogger(l: unknown): void } }).logger.overrideLogger({ log() {}, info() {}, warn() {}, error() {} });
+  await elev.write();
+  const trivial = performance.now() - t0;
+  console.log(`Eleventy writing ${2 * PARTS} trivial pages: ${s(trivial)}; the rebuild above took ${(lastTotal / trivial).toFixed(1)}× that (goal: within 2×)`);
+}
 
 // PDFs: print BENCH_PDFS datasheets (default 100) of the site just built, in one browser
 const found = await findBrowser(undefined);

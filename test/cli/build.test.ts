@@ -148,9 +148,31 @@ describe('scatterbook build', () => {
     expect(page).toContain(createHash('sha256').update(readFileSync(data)).digest('hex'));
     writeFileSync(join(c, 'site.yaml'), 'vendor: Another Name\n');
     expect(run(args).stdout).not.toContain('from the cache');
+    // the pages kept for copying are keyed the same way: none of them is served either
+    for (const f of ['parts/vt-pad-10/index.html', 'parts/vt-pad-10/report.html'])
+      expect(readFileSync(join(dir, 'site-stale', f), 'utf8')).toContain('Another Name');
     mkdirSync(join(c, '_includes'));
-    writeFileSync(join(c, '_includes/ports.njk'), '<section class="ports"><h2 id="ports-title">Ports</h2></section>\n');
+    writeFileSync(join(c, '_includes/ports.njk'), '<section class="ports"><h2 id="ports-title">Ports of the override</h2></section>\n');
     expect(run(args).stdout).not.toContain('from the cache');
+    expect(readFileSync(join(dir, 'site-stale/parts/vt-pad-10/index.html'), 'utf8')).toContain('Ports of the override');
+  });
+
+  it("a rebuild copies the unchanged parts' pages kept from the last build, and they equal a fresh render byte for byte", () => {
+    content('kept');
+    const cached = ['build', 'kept', '--no-pdf', '--cache', 'cache-kept'];
+    expect(run([...cached, '--out', 'site-kept-1']).status).toBe(0);
+    expect(readdirSync(join(dir, 'cache-kept/pages')).filter((n) => /^vt-(pad-10|cbl-150)-[0-9a-f]{32}$/.test(n))).toHaveLength(2);
+    expect(run([...cached, '--out', 'site-kept-2']).stdout).toContain('(2 unchanged, from the cache)');
+    expect(run(['build', 'kept', '--no-pdf', '--no-cache', '--out', 'site-kept-fresh']).status).toBe(0);
+    const files = (root: string): string[] =>
+      readdirSync(root, { recursive: true, withFileTypes: true })
+        .filter((e) => e.isFile())
+        .map((e) => join(e.parentPath, e.name).slice(root.length))
+        .sort();
+    const fresh = join(dir, 'site-kept-fresh');
+    const copied = join(dir, 'site-kept-2');
+    expect(files(copied)).toEqual(files(fresh));
+    for (const f of files(fresh)) expect(readFileSync(join(copied, f)).equals(readFileSync(join(fresh, f))), f).toBe(true);
   });
 
   it('a different build of scatterbook with the same version number misses the cache', () => {
