@@ -86,7 +86,7 @@ export async function buildCatalog(contentRoot: string, options: BuildCatalogOpt
         results[i] = { page: spill(cached), failure: null };
         hits++;
       } else {
-        const b = await buildPartSafely(file, contentRoot, slug, settings, options.times);
+        const b = await buildPartSafely(file, contentRoot, slug, settings, options.times, options.spillDir);
         if (b.page && cache) cache.write(slug, file, b.page);
         results[i] = b.page ? { page: spill(b.page), failure: null } : b;
       }

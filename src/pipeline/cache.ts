@@ -131,7 +131,7 @@ export function openCache(dir: string, content: string, siteText: string): PartC
       if (!key) return;
       const inputs = Object.fromEntries(page.measurements.map((m) => [m.file, m.sha256]));
       // SVGs and the median text in files of their own beside the entry, so that reading an entry reads little
-      writeFileAtomic(entryPath(slug, key), JSON.stringify({ inputs, page: spillPage(page, dir, `${slug}-${key}`, writeFileAtomic) }));
+      writeFileAtomic(entryPath(slug, key), JSON.stringify({ inputs, page: spillPage(page, dir, `${slug}-${key}`, writeFileAtomic, true) }));
     },
   };
 }

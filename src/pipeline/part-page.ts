@@ -173,7 +173,15 @@ export interface PartBuild {
 }
 
 /** Builds one part's page model; errors come back as a failure, never thrown. */
-export async function buildPartPage(partFile: string, contentRoot: string, slug: string, settings: SiteSettings, times?: StageTimes): Promise<PartBuild> {
+export async function buildPartPage(
+  partFile: string,
+  contentRoot: string,
+  slug: string,
+  settings: SiteSettings,
+  times?: StageTimes,
+  /** The build's folder for page texts (pipeline/spill.ts): the plot workers write the SVGs there themselves. */
+  spillDir?: string | null,
+): Promise<PartBuild> {
   const display = relative(process.cwd(), partFile) || partFile;
   const outcome = await evaluatePartFile(partFile, contentRoot, display, times);
   if (!outcome.result || !outcome.part) {
@@ -211,7 +219,7 @@ export async function buildPartPage(partFile: string, contentRoot: string, slug:
     return { page: null, failure: { slug, file: display, messages: [formatSpecError(problem, problem.file === display ? outcome.source : undefined)] } };
   const past = history(releases.records, { revision: part.revision, date: part.date ?? '', figures: recordedFigures(result.results) }, slug, partDir);
   const tp = performance.now();
-  const plots = await plotBlocks(buildPlots(part, outcome.units), `${slug}-`);
+  const plots = await plotBlocks(buildPlots(part, outcome.units), `${slug}-`, spillDir ? { dir: spillDir, stem: slug } : undefined);
   if (times) times.plots += performance.now() - tp;
   const lo = largest(outcome.units.map((u) => u.network.freqHz[0]));
   const hi = smallest(outcome.units.map((u) => u.network.freqHz[u.network.freqHz.length - 1]));

@@ -5,6 +5,7 @@
  * running compiled (dist/); elsewhere (tests through tsx) plots render in
  * this thread. The result is the same SVG either way.
  */
+import { writeFileSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { Worker } from 'node:worker_threads';
 import type { PlotModel } from './model.js';
@@ -21,18 +22,19 @@ interface Job {
 class Pool {
   private readonly workers: Worker[] = [];
   private readonly idle: Worker[] = [];
-  private readonly queue: Array<{ model: PlotModel; prefix: string; job: Job }> = [];
+  private readonly queue: Array<{ model: PlotModel; prefix: string; file?: string; job: Job }> = [];
   private readonly running = new Map<Worker, Job>();
 
   constructor(size: number, url: URL) {
     for (let i = 0; i < size; i++) {
       // a plot worker's live data are a few megabytes; without a cap V8 lets its heap grow with the garbage of thousands of plots
       const w = new Worker(url, { resourceLimits: { maxOldGenerationSizeMb: WORKER_HEAP_MB } });
-      w.on('message', (msg: { svg?: string; error?: string }) => {
+      w.on('message', (msg: { svg?: string; error?: string; message?: string; fault?: { code: string; errno?: number; path?: string; syscall?: string } }) => {
         const job = this.running.get(w);
         this.running.delete(w);
         if (job) {
-          if (msg.error !== undefined) job.reject(new Error(msg.error));
+          // a file-system fault keeps its code, errno, path and syscall, so that it is worded as the machine's (io/fault.ts)
+          if (msg.error !== undefined) job.reject(msg.fault ? Object.assign(new Error(msg.message), msg.fault) : new Error(msg.error));
           else job.resolve(msg.svg as string);
         }
         w.unref();
@@ -52,9 +54,9 @@ class Pool {
     }
   }
 
-  render(model: PlotModel, prefix: string): Promise<string> {
+  render(model: PlotModel, prefix: string, file?: string): Promise<string> {
     return new Promise((resolve, reject) => {
-      this.queue.push({ model, prefix, job: { resolve, reject } });
+      this.queue.push({ model, prefix, file, job: { resolve, reject } });
       this.next();
     });
   }
@@ -62,10 +64,10 @@ class Pool {
   private next(): void {
     while (this.idle.length && this.queue.length) {
       const w = this.idle.pop() as Worker;
-      const { model, prefix, job } = this.queue.shift() as (typeof this.queue)[number];
+      const { model, prefix, file, job } = this.queue.shift() as (typeof this.queue)[number];
       this.running.set(w, job);
       w.ref();
-      w.postMessage({ model, prefix });
+      w.postMessage({ model, prefix, file });
     }
   }
 
@@ -84,9 +86,14 @@ function getPool(): Pool | null {
   return pool;
 }
 
-export function renderPlotAnywhere(model: PlotModel, prefix: string): Promise<string> {
+/** The plot's SVG; or, given a file, the SVG written there (by the thread that drew it) and ''. */
+export async function renderPlotAnywhere(model: PlotModel, prefix: string, file?: string): Promise<string> {
   const p = getPool();
-  return p ? p.render(model, prefix) : renderPlot(model, prefix);
+  if (p) return p.render(model, prefix, file);
+  const svg = await renderPlot(model, prefix);
+  if (!file) return svg;
+  writeFileSync(file, svg);
+  return '';
 }
 
 export async function closePlotPool(): Promise<void> {
