@@ -1,3 +1,5 @@
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
 /** Shared test helpers: building small networks and comparing numbers with stated tolerances. */
 import { expect } from 'vitest';
 import { makeNetwork, type Network } from '../src/network/network.js';
@@ -100,4 +102,19 @@ export function partYaml(opts: { cls?: string; units: string[]; bands: string; l
     .map((u) => `  - {unit: ${u}, file: ${u}.s4p${opts.conditions?.[u] ? `, conditions: {temperature: ${opts.conditions[u]}}` : ''}}`)
     .join('\n');
   return `part: T-1\nclass: ${opts.cls ?? 'generic'}\nrevision: A\nmeasurements:\n${ms}\nbands:\n${opts.bands}\nlimits:\n${opts.limits}\n${opts.extra ?? ''}`;
+}
+
+const TINY_DATA = '# GHz S MA R 50\n1 0.1 0 0.9 -10 0.9 -10 0.1 0\n2 0.1 0 0.9 -20 0.9 -20 0.1 0\n';
+
+/** A content folder under `root` with one small attenuator part per slug (an invented 2-point file, 1–2 GHz), for tests of the build's plumbing. */
+export function tinyContent(root: string, slugs: readonly string[]): string {
+  for (const slug of slugs) {
+    mkdirSync(join(root, 'parts', slug, 'data'), { recursive: true });
+    writeFileSync(join(root, 'parts', slug, 'data/u1.s2p'), TINY_DATA);
+    writeFileSync(
+      join(root, 'parts', slug, 'part.yaml'),
+      `part: ${slug.toUpperCase()}\nrevision: A\nclass: attenuator\nmeasurements:\n  - {unit: U1, file: data/u1.s2p}\nbands:\n  b: {from: 1 GHz, to: 2 GHz}\nlimits:\n  - {figure: insertion-loss, on: S21, band: b, max: 2 dB}\n`,
+    );
+  }
+  return root;
 }

@@ -5,10 +5,11 @@
  * and the build exits 4 asking for a report (build-command.ts). The bug is
  * simulated by a buildPartPage that throws for one slug.
  */
-import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it, vi } from 'vitest';
+import { tinyContent } from '../helpers.js';
 
 vi.mock('../../src/pipeline/part-page.js', async (original) => {
   const real = await original<typeof import('../../src/pipeline/part-page.js')>();
@@ -24,19 +25,7 @@ vi.mock('../../src/pipeline/part-page.js', async (original) => {
 
 const { buildCatalog } = await import('../../src/pipeline/build-catalog.js');
 
-const DATA = '# GHz S MA R 50\n1 0.1 0 0.9 -10 0.9 -10 0.1 0\n2 0.1 0 0.9 -20 0.9 -20 0.1 0\n';
-function content(slugs: string[]): string {
-  const root = join(mkdtempSync(join(tmpdir(), 'scatterbook-internal-')), 'content');
-  for (const slug of slugs) {
-    mkdirSync(join(root, 'parts', slug, 'data'), { recursive: true });
-    writeFileSync(join(root, 'parts', slug, 'data/u1.s2p'), DATA);
-    writeFileSync(
-      join(root, 'parts', slug, 'part.yaml'),
-      `part: ${slug.toUpperCase()}\nrevision: A\nclass: attenuator\nmeasurements:\n  - {unit: U1, file: data/u1.s2p}\nbands:\n  b: {from: 1 GHz, to: 2 GHz}\nlimits:\n  - {figure: insertion-loss, on: S21, band: b, max: 2 dB}\n`,
-    );
-  }
-  return root;
-}
+const content = (slugs: string[]) => tinyContent(join(mkdtempSync(join(tmpdir(), 'scatterbook-internal-')), 'content'), slugs);
 
 describe('a bug on one part', () => {
   it("is that part's failure, marked internal, with the part file named; the other part is built", async () => {

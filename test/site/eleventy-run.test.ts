@@ -3,24 +3,15 @@
  * `config` option), not through module state: two sites written at once in one
  * process each hold their own parts only.
  */
-import { mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { buildCatalog } from '../../src/pipeline/build-catalog.js';
 import { writeSite } from '../../src/site/eleventy-run.js';
+import { tinyContent } from '../helpers.js';
 
-const DATA = '# GHz S MA R 50\n1 0.1 0 0.9 -10 0.9 -10 0.1 0\n2 0.1 0 0.9 -20 0.9 -20 0.1 0\n';
-function content(root: string, slug: string): string {
-  const dir = join(root, slug, 'content');
-  mkdirSync(join(dir, 'parts', slug, 'data'), { recursive: true });
-  writeFileSync(join(dir, 'parts', slug, 'data/u1.s2p'), DATA);
-  writeFileSync(
-    join(dir, 'parts', slug, 'part.yaml'),
-    `part: ${slug.toUpperCase()}\nrevision: A\nclass: attenuator\nmeasurements:\n  - {unit: U1, file: data/u1.s2p}\nbands:\n  b: {from: 1 GHz, to: 2 GHz}\nlimits:\n  - {figure: insertion-loss, on: S21, band: b, max: 2 dB}\n`,
-  );
-  return dir;
-}
+const content = (root: string, slug: string) => tinyContent(join(root, slug, 'content'), [slug]);
 
 describe('two Eleventy runs in one process', () => {
   it('written at the same time, each site has its own catalog', async () => {
