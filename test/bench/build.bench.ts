@@ -134,6 +134,17 @@ writeFileSync(yaml, `${readFileSync(yaml, 'utf8')}# edited at ${Date.now()}\n`);
 await build('rebuild after one part changed');
 await closePlotPool();
 
+// the same catalog through the command itself, whose build runs in a worker thread with a capped heap (bin/scatterbook.js):
+// its peak RSS as /usr/bin/time reports it, where that is installed
+if (existsSync('/usr/bin/time')) {
+  const bin = join(import.meta.dirname, '../../bin/scatterbook.js');
+  const r = spawnSync('/usr/bin/time', ['-f', '%e %M', process.execPath, bin, 'build', content, '--out', join(root, 'site-cli'), '--no-pdf', '--no-cache'], {
+    encoding: 'utf8',
+  });
+  const [secs, kb] = (r.stderr.trim().split('\n').pop() ?? '').split(' ').map(Number);
+  console.log(`scatterbook build (the command, no cache): ${secs.toFixed(1)} s, peak RSS ${mb(kb)} (exit ${r.status})`);
+}
+
 // the reference for a rebuild: Eleventy writing as many trivial pages (a datasheet and a report per part) with nothing else to do
 {
   const dir = join(root, 'trivial');
