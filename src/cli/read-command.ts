@@ -98,15 +98,8 @@ function sJsonFromText(data: TouchstoneData, text: { source: Uint8Array; tokens:
   return out.subarray(0, w);
 }
 
-/** The JSON of `read --json` as one string. */
-export function readJson(data: TouchstoneData, text?: { source: Uint8Array; tokens: Float64Array }): string {
-  return readJsonParts(data, text)
-    .map((p) => (typeof p === 'string' ? p : Buffer.from(p.buffer, p.byteOffset, p.byteLength).toString('latin1')))
-    .join('');
-}
-
 /** The JSON of `read --json` in pieces to write one after another (no object per value); with the file's text, S values are copied as written (sJsonFromText), as bytes. */
-function readJsonParts(data: TouchstoneData, text?: { source: Uint8Array; tokens: Float64Array }): Array<string | Uint8Array> {
+function readJson(data: TouchstoneData, text?: { source: Uint8Array; tokens: Float64Array }): Array<string | Uint8Array> {
   const net = data.network;
   const n = net.ports;
   const k = net.freqHz.length;
@@ -219,17 +212,7 @@ export const readCommand: Command = {
     if (!json) t.stdout.write(readSummary(file, result.value, t));
     else {
       // the S array goes out as the bytes it was copied into (a latin1 string of 15 MB would be encoded again)
-      const parts = readJsonParts(result.value, result.text);
-      let pending = '';
-      for (const p of parts) {
-        if (typeof p === 'string') pending += p;
-        else {
-          t.stdout.write(pending);
-          pending = '';
-          t.stdout.write(p);
-        }
-      }
-      t.stdout.write(pending);
+      for (const piece of readJson(result.value, result.text)) t.stdout.write(piece);
     }
     return EXIT.ok;
   },

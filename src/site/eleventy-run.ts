@@ -1,9 +1,8 @@
 /** Runs Eleventy on our pages with our configuration file, into a given folder. */
 import { join } from 'node:path';
 import Eleventy from '@11ty/eleventy';
-import { PACKAGE_ROOT, PAGES_DIR, scatterbookSite } from './plugin.js';
-import type { Catalog } from '../model/catalog.js';
-import { copyAssets } from '../io/assets.js';
+import { copyLinkedFiles, PACKAGE_ROOT, PAGES_DIR, scatterbookSite } from './plugin.js';
+import type { Catalog, PartPage } from '../model/catalog.js';
 import type { RenderedPages } from '../io/rendered-pages.js';
 
 /**
@@ -27,11 +26,11 @@ export async function writeSite(content: string, catalog: Catalog, outDir: strin
   const { comparisons } = catalog.pages;
   let { parts, reports } = catalog.pages;
   if (rendered) {
-    // the pages of parts rendered before from the same inputs are copied, with the data files they link
-    const again = parts.filter((p) => !rendered.restore(p, outDir));
-    const copied = parts.filter((p) => !again.includes(p));
-    const files = copied.flatMap((p) => [...p.dataFiles, ...p.releasedFiles].map((d) => ({ from: join(content, d.from), to: d.url })));
-    copyAssets({ files, errors: [] }, outDir);
+    // the pages of parts rendered before from the same inputs are copied, with the files they link
+    const again: PartPage[] = [];
+    const copied: PartPage[] = [];
+    for (const p of parts) (rendered.restore(p, outDir) ? copied : again).push(p);
+    copyLinkedFiles(content, copied, outDir);
     const slugs = new Set(again.map((p) => p.slug));
     parts = again;
     reports = reports.filter((p) => slugs.has(p.slug));

@@ -13,7 +13,7 @@ import type { UserConfig } from '@11ty/eleventy';
 import nunjucks from 'nunjucks';
 import { svgOf } from '../io/spilled.js';
 import { copyAssets, planAssets } from '../io/assets.js';
-import type { Catalog } from '../model/catalog.js';
+import type { Catalog, PartPage } from '../model/catalog.js';
 
 /** The package root (this file is src/site/plugin.ts, or dist/site/plugin.js once compiled). */
 export const PACKAGE_ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '../..');
@@ -50,6 +50,12 @@ export function noBreakUnits(html: string): string {
   );
 }
 
+/** Copies the files the parts' pages link into the site: their measured Touchstone files and released documents. */
+export function copyLinkedFiles(content: string, parts: readonly PartPage[], out: string): void {
+  const files = parts.flatMap((p) => [...p.dataFiles, ...p.releasedFiles].map((d) => ({ from: join(content, d.from), to: d.url })));
+  copyAssets({ files, errors: [] }, out);
+}
+
 export function templateSearchPath(content: string): string[] {
   const own = join(content, '_includes');
   return existsSync(own) ? [own, INCLUDES_DIR] : [INCLUDES_DIR];
@@ -83,10 +89,7 @@ export function scatterbookSite(config: UserConfig, options: SitePluginOptions):
     if (plan.errors.length) throw new Error(plan.errors.join('\n'));
     copyAssets(plan, out);
     // the measured Touchstone files the datasheets link ("S-parameter data"), unless site.yaml keeps them out
-    const files = (await catalog()).pages.parts.flatMap((p) =>
-      [...p.dataFiles, ...p.releasedFiles].map((d) => ({ from: join(options.content, d.from), to: d.url })),
-    );
-    copyAssets({ files, errors: [] }, out);
+    copyLinkedFiles(options.content, (await catalog()).pages.parts, out);
   });
   // Eleventy reads watch targets relative to the working folder
   config.addWatchTarget(relative(process.cwd(), options.content) || '.');

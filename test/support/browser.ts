@@ -7,6 +7,7 @@ import { existsSync, mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import puppeteer, { type Browser } from 'puppeteer-core';
+import { launchArgs } from '../../src/pdf/print.js';
 
 export function browserPath(): string | null {
   const candidates = [process.env.SCATTERBOOK_BROWSER, '/usr/bin/chromium', '/usr/bin/chromium-browser', '/usr/bin/google-chrome'].filter(Boolean) as string[];
@@ -17,15 +18,7 @@ export const haveBrowser = browserPath() !== null;
 if (!haveBrowser && process.env.CI) throw new Error('page tests need Chromium in CI: apt-get install -y chromium');
 
 export async function launch(): Promise<Browser> {
-  const args = [
-    '--disable-gpu',
-    '--disable-background-networking',
-    '--disable-component-update',
-    '--disable-sync',
-    '--no-first-run',
-    '--disable-quic',
-    `--user-data-dir=${mkdtempSync(join(tmpdir(), 'scatterbook-chromium-'))}`,
-  ];
-  if (process.getuid?.() === 0) args.push('--no-sandbox');
+  // the flags the PDF printer launches with (offline, quiet, a fresh profile, no sandbox as root)
+  const args = launchArgs(mkdtempSync(join(tmpdir(), 'scatterbook-chromium-')));
   return puppeteer.launch({ executablePath: browserPath() as string, headless: true, args });
 }
