@@ -4,6 +4,7 @@
  * meant), and a message saying what was wrong and what was expected.
  */
 import { printable } from '../format/escape.js';
+import { whereOf } from '../format/where.js';
 
 export type SpecErrorCode =
   | 'yaml-syntax'
@@ -56,13 +57,9 @@ export interface SpecWarning extends Position {
   readonly message: string;
 }
 
-/** `FILE:LINE:COL`, `FILE:LINE`, or `FILE` alone for what concerns a whole file (line 0). */
-export const whereOf = (e: { readonly file: string; readonly line: number; readonly column: number }): string =>
-  e.line > 0 ? `${e.file}:${e.line}${e.column ? `:${e.column}` : ''}` : e.file;
-
 /** `FILE:LINE:COL: error: message` (or `warning:`), then the source line and a caret under the fault when the text is known. */
 export function formatSpecError(e: SpecError | SpecWarning, source?: string, severity: 'error' | 'warning' = 'error'): string {
-  let out = `${printable(whereOf(e))}: ${severity}: ${printable(e.message)}`;
+  let out = `${printable(whereOf(e.file, e.line, e.column))}: ${severity}: ${printable(e.message)}`;
   if (source && e.line > 0) {
     const text = source.split(/\r?\n/)[e.line - 1];
     if (text !== undefined) out += `\n  ${printable(text)}\n  ${' '.repeat(Math.max(0, e.column - 1))}^`;

@@ -10,7 +10,8 @@ import { passivity, reciprocity } from '../network/quality.js';
 import { classOf } from '../classes/registry.js';
 import { buildPlots } from '../plots/model.js';
 import { plotBlocks } from './plot-blocks.js';
-import { formatSpecError, whereOf, type SpecError } from '../part-file/diagnostics.js';
+import { formatSpecError, type SpecError } from '../part-file/diagnostics.js';
+import { whereOf } from '../format/where.js';
 import type { NormalizedPart } from '../part-file/normalize.js';
 import { cautionsFor } from '../classes/cautions.js';
 import { renderMarkdown } from '../format/markdown.js';
@@ -272,7 +273,7 @@ export async function buildPartPage(
     lots: lotRows(part, result.results, outcome.units, resolution),
     ratings: part.ratings.map((r) => ({ parameter: r.parameter, value: r.value, notes: r.notes ?? '' })),
     cautions: cautionsFor(part.partClass, part.cautions),
-    warnings: result.warnings.map((w) => ({ where: whereOf(w), message: w.message, fromFile: w.code === 'touchstone' })),
+    warnings: result.warnings.map((w) => ({ where: whereOf(w.file, w.line, w.column), message: w.message, fromFile: w.code === 'touchstone' })),
     // safe inside <script type="application/json">: no "<" can close the element
     figuresJson: JSON.stringify(figuresJson(result)).replace(/</g, '\\u003c'),
     inputs: inputsOf(partFile, outcome.units, contentRoot),

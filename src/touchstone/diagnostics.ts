@@ -4,6 +4,7 @@
  * 1-based column, and a message that says what was wrong and what was expected.
  */
 import { printable } from '../format/escape.js';
+import { whereOf } from '../format/where.js';
 
 export type TouchstoneErrorCode =
   | 'not-text'
@@ -50,8 +51,7 @@ export type TouchstoneWarning = TouchstoneDiagnostic<TouchstoneWarningCode>;
 
 /** `FILE:LINE: message` (or `FILE:LINE:COL: message`; `FILE: message` for whole-file problems). */
 export function formatDiagnostic(fileName: string, d: TouchstoneDiagnostic, severity?: 'error' | 'warning'): string {
-  const where = d.line <= 0 ? fileName : d.column ? `${fileName}:${d.line}:${d.column}` : `${fileName}:${d.line}`;
-  return `${printable(where)}: ${severity ? `${severity}: ` : ''}${printable(d.message)}`;
+  return `${printable(whereOf(fileName, d.line, d.column))}: ${severity ? `${severity}: ` : ''}${printable(d.message)}`;
 }
 
 /** Thrown inside the parser to stop at the first error; never escapes it. */
